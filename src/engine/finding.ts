@@ -1,0 +1,40 @@
+// Findings: what a rule reports, as plain data that every formatter reads.
+import type { Statement } from '../load/statement.js';
+
+/** SARIF levels a finding can have. */
+export type Level = 'error' | 'warning' | 'note';
+
+/** A rule's configured level: a finding level, or off. */
+export type RuleLevel = Level | 'off';
+
+/** How a finding was suppressed: an allow comment in the source, or an `allow:` entry in config. */
+export interface Suppression {
+  kind: 'inSource' | 'external';
+  justification: string;
+  /** Where the allow comment or config entry is. */
+  file: string;
+  line: number;
+}
+
+/** One reported fact about the hierarchy. */
+export interface Finding {
+  ruleId: string;
+  level: Level;
+  /** IRI or blank-node label the finding is anchored on. */
+  focus: string;
+  /** Involved nodes, in the rule's order (unordered pairs sorted). */
+  nodes: string[];
+  message: string;
+  /** The statements that made it, first one is the primary location. */
+  evidence: Statement[];
+  /** sha-256 hex of ruleId + nodes, never of positions. */
+  fingerprint: string;
+  fix?: { remove: Statement[] };
+  suppression?: Suppression;
+}
+
+/** A rule that failed while running; reported instead of crashing the run. */
+export interface RuleFailure {
+  ruleId: string;
+  message: string;
+}

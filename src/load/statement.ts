@@ -1,0 +1,72 @@
+// Statements as the loaders give them: RDF terms as plain strings, plus where they were stated.
+
+/** A literal object: lexical form, datatype IRI, and language tag ('' when none). */
+export interface Literal {
+  value: string;
+  datatype: string;
+  language: string;
+}
+
+/** Where a statement was stated: 1-based line and 1-based column (UTF-16 code units) of its subject. */
+export interface Position {
+  file: string;
+  line: number;
+  column: number;
+}
+
+/**
+ * One RDF statement with its source position.
+ * Subject and object are an IRI, or `_:label` for a blank node (labels are stable per file and
+ * distinct across files); a literal object is a `Literal`. `graph` is '' for the default graph.
+ * `objectLine` is the line of the object token, which differs from `position.line` when a Turtle
+ * statement spans lines (`;` and `,` lists); suppression comments are matched against both.
+ */
+export interface Statement {
+  subject: string;
+  predicate: string;
+  object: string | Literal;
+  graph: string;
+  position: Position;
+  objectLine: number;
+}
+
+/** A syntax or input error: where it is, what was expected, and a hint for fixing it. */
+export interface InputError {
+  file: string;
+  line: number;
+  column: number;
+  message: string;
+  hint?: string;
+}
+
+/** An `# isapart-allow RULE-ID: reason` comment found in a source file. */
+export interface AllowComment {
+  file: string;
+  line: number;
+  column: number;
+  ruleId: string;
+  reason: string;
+  /** true when the comment stands alone on its line (it then applies to the line below). */
+  ownLine: boolean;
+}
+
+/** The RDF syntaxes isapart reads. */
+export type RdfFormat = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
+
+/** Everything read from one source (a file, or stdin as file '-'). */
+export interface LoadedSource {
+  file: string;
+  format: RdfFormat;
+  statements: Statement[];
+  errors: InputError[];
+  allowComments: AllowComment[];
+  /** Prefixes declared in the source, prefix → namespace IRI. */
+  prefixes: Record<string, string>;
+}
+
+/** The result of reading every source of a run. */
+export interface LoadResult {
+  sources: LoadedSource[];
+  /** Errors not tied to a parsed source: a missing path, an unreadable file, a bad gzip stream. */
+  errors: InputError[];
+}
