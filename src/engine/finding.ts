@@ -1,5 +1,5 @@
 // Findings: what a rule reports, as plain data that every formatter reads.
-import type { Statement } from '../load/statement.js';
+import type { Position, Statement } from '../load/statement.js';
 
 /** SARIF levels a finding can have. */
 export type Level = 'error' | 'warning' | 'note';
@@ -29,6 +29,8 @@ export interface Finding {
   evidence: Statement[];
   /** sha-256 hex of ruleId + nodes, never of positions. */
   fingerprint: string;
+  /** Where to report a finding that has no statement evidence (an unused allow comment). */
+  location?: Position;
   fix?: { remove: Statement[] };
   suppression?: Suppression;
 }

@@ -1,0 +1,33 @@
+// What every formatter may read besides the findings: the run's inputs, rules and problems.
+import type { RuleFailure, RuleLevel } from '../engine/finding.js';
+import type { RuleDefinition } from '../engine/rule.js';
+import type { GraphStats } from '../graph/hierarchy-graph.js';
+import type { InputError, RdfFormat } from '../load/statement.js';
+
+/** A rule as the run used it: its definition and its effective level. */
+export interface RuleInUse {
+  rule: RuleDefinition;
+  level: RuleLevel;
+}
+
+/** The context of one run, passed to every formatter beside the findings. */
+export interface ReportContext {
+  toolName: 'isapart';
+  toolVersion: string;
+  /** Paths in the output are made relative to this folder. */
+  cwd: string;
+  sources: { file: string; format: RdfFormat; statements: number }[];
+  /** Syntax, input and config errors (any of them makes the run exit 2). */
+  inputErrors: InputError[];
+  ruleFailures: RuleFailure[];
+  /** Every known rule with its effective level (off ones included). */
+  rules: RuleInUse[];
+  configFile?: string;
+  stats?: GraphStats;
+  /** Colour for the text format. */
+  color: boolean;
+  startTime: Date;
+  endTime: Date;
+  /** The command line, for SARIF's invocation. */
+  commandLine: string;
+}
