@@ -1,0 +1,173 @@
+// The library entry point: load sources and config, build the graph, run the rules, suppress.
+import path from 'node:path';
+import { findConfigFile, loadConfig, emptyConfig, mergeCommandLine, checkRuleIds } from './config/load-config.js';
+import type { IsapartConfig } from './config/config.js';
+import type { Finding, Level, RuleLevel } from './engine/finding.js';
+import type { RuleDefinition } from './engine/rule.js';
+import { createRegistry, loadBuiltinRules, loadRuleDir } from './engine/rule-file.js';
+import { runRules } from './engine/run.js';
+import { applySuppressions, UNUSED_ALLOW_RULE } from './engine/suppress.js';
+import { buildHierarchyGraph } from './graph/build.js';
+import type { HierarchyGraph } from './graph/hierarchy-graph.js';
+import type { InputError } from './load/statement.js';
+import { loadSources } from './load/sources.js';
+import type { ReportContext, RuleInUse } from './report/context.js';
+import { buildRoleMap } from './roles/role-map.js';
+import { toolVersion } from './version.js';
+
+/** What one run is asked to do; the command line parses into exactly this. */
+export interface CheckOptions {
+  /** Files or folders; '-' for stdin. */
+  paths: string[];
+  cwd?: string;
+  stdin?: NodeJS.ReadableStream;
+  /** Like -c; otherwise the nearest isapart.yaml upward from the first path. */
+  configFile?: string;
+  presets?: string[];
+  scope?: string[];
+  roots?: string[];
+  /** Rule id → level, from --rule ID=LEVEL. */
+  ruleLevels?: Record<string, string>;
+  /** Whether the text format may colour its output. */
+  color?: boolean;
+  /** The command line as typed, for SARIF's invocation record. */
+  commandLine?: string;
+}
+
+/** Everything a run produced: findings, the context every formatter reads, and the graph. */
+export interface CheckResult {
+  /** All findings, suppressed ones with `suppression` set, unused allows included. */
+  findings: Finding[];
+  context: ReportContext;
+  graph: HierarchyGraph;
+}
+
+/** Levels from most to least severe, for comparisons. */
+const SEVERITY: Record<Level, number> = { error: 3, warning: 2, note: 1 };
+
+/** Runs one lint: the whole data flow from sources to suppressed findings. */
+export async function check(options: CheckOptions): Promise<CheckResult> {
+  const startTime = new Date();
+  const cwd = options.cwd ?? process.cwd();
+  const inputErrors: InputError[] = [];
+
+  const { config, errors: configErrors } = readConfig(options, cwd);
+  inputErrors.push(...configErrors);
+
+  const { rules, errors: ruleErrors } = readRules(config);
+  inputErrors.push(...ruleErrors);
+
+  const { roleMap, conflicts } = buildRoleMap(config.presets, config.roles);
+  for (const conflict of conflicts) {
+    inputErrors.push({ file: config.file ?? '<command line>', line: 0, column: 0, message: conflict });
+  }
+
+  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
+  inputErrors.push(...loaded.errors);
+  for (const source of loaded.sources) inputErrors.push(...source.errors);
+
+  const graph = buildHierarchyGraph(loaded.sources, roleMap, { prefixes: config.scope, roots: config.roots });
+  const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
+  const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
+  const { findings: raw, failures } = runRules(graph, active);
+
+  const comments = loaded.sources.flatMap((source) => source.allowComments);
+  const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
+  const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
+  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unused.map((f) => ({ ...f, level: unusedLevel }))];
+
+  const context: ReportContext = {
+    toolName: 'isapart',
+    toolVersion: toolVersion(),
+    cwd,
+    sources: loaded.sources.map((source) => ({
+      file: source.file,
+      format: source.format,
+      statements: source.statements.length,
+    })),
+    inputErrors,
+    ruleFailures: failures,
+    rules: [...rulesInUse, { rule: UNUSED_ALLOW_RULE, level: unusedLevel }],
+    configFile: config.file,
+    stats: graph.stats,
+    color: options.color ?? false,
+    startTime,
+    endTime: new Date(),
+    commandLine: options.commandLine ?? `isapart check ${options.paths.join(' ')}`,
+  };
+  return { findings, context, graph };
+}
+
+/** Finds and reads the config, then applies the command-line overrides. */
+function readConfig(options: CheckOptions, cwd: string): { config: IsapartConfig; errors: InputError[] } {
+  const errors: InputError[] = [];
+  const firstPath = options.paths.find((p) => p !== '-');
+  const configFile = options.configFile
+    ? path.resolve(cwd, options.configFile)
+    : findConfigFile(path.resolve(cwd, firstPath ?? '.'));
+  let config = emptyConfig();
+  if (configFile) {
+    const read = loadConfig(configFile);
+    config = read.config;
+    errors.push(...read.errors);
+  }
+  const merged = mergeCommandLine(config, {
+    presets: options.presets,
+    scope: options.scope,
+    roots: options.roots,
+    ruleLevels: options.ruleLevels,
+  });
+  errors.push(...merged.errors);
+  return { config: merged.config, errors };
+}
+
+/** The rules a run would use, with their effective levels, for `isapart rules` and `explain`. */
+export function rulesInUse(options: Pick<CheckOptions, 'configFile' | 'cwd' | 'paths' | 'ruleLevels'>): {
+  rules: RuleInUse[];
+  errors: InputError[];
+} {
+  const cwd = options.cwd ?? process.cwd();
+  const { config, errors } = readConfig({ paths: options.paths, configFile: options.configFile, ruleLevels: options.ruleLevels }, cwd);
+  const read = readRules(config);
+  const rules = read.rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
+  rules.push({ rule: UNUSED_ALLOW_RULE, level: config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level });
+  return { rules, errors: [...errors, ...read.errors] };
+}
+
+/** Reads the built-in rules and the configured rule folders into one registry, and checks config ids. */
+function readRules(config: IsapartConfig): { rules: RuleDefinition[]; errors: InputError[] } {
+  const builtin = loadBuiltinRules();
+  const all = [...builtin.rules];
+  const errors = [...builtin.errors];
+  for (const dir of config.ruleDirs) {
+    const read = loadRuleDir(dir);
+    all.push(...read.rules);
+    errors.push(...read.errors);
+  }
+  const registry = createRegistry(all);
+  errors.push(...registry.errors);
+  const rules = [...registry.rules.values()];
+  errors.push(...checkRuleIds(config, [...rules.map((rule) => rule.id), UNUSED_ALLOW_RULE.id]));
+  return { rules, errors };
+}
+
+/** Whether a level is at or above a threshold level. */
+export function atOrAbove(level: Level, threshold: Level): boolean {
+  return SEVERITY[level] >= SEVERITY[threshold];
+}
+
+/** The threshold `--fail-on` takes: a level, or never. */
+export type FailOn = Level | 'never';
+
+/** The exit code of a run: 2 on any input error, 1 on an unsuppressed finding at or above failOn, else 0. */
+export function exitCodeFor(result: CheckResult, failOn: FailOn): 0 | 1 | 2 {
+  if (result.context.inputErrors.length > 0 || result.context.ruleFailures.length > 0) return 2;
+  if (failOn === 'never') return 0;
+  const failing = result.findings.some((finding) => !finding.suppression && atOrAbove(finding.level, failOn));
+  return failing ? 1 : 0;
+}
+
+/** A parsed rule level, or undefined when the text is none of error|warning|note|off. */
+export function parseRuleLevel(text: string): RuleLevel | undefined {
+  return text === 'error' || text === 'warning' || text === 'note' || text === 'off' ? text : undefined;
+}

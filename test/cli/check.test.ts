@@ -1,0 +1,140 @@
+// End-to-end specification of `isapart check`: exit codes, inputs, outputs.
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, readdirSync, writeFileSync, mkdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.js';
+import { fakeTerminal } from './terminal-fake.js';
+
+const PREFIXES = `@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .
+@prefix dcterms: <http://purl.org/dc/terms/> .
+@prefix nv: <https://data.northvale-rail.example/def/> .
+`;
+const CLEAN = `${PREFIXES}nv:Bogie rdfs:subClassOf nv:Component .\nnv:Component rdfs:subClassOf nv:Asset .\n`;
+const CYCLE = `${PREFIXES}nv:Car rdfs:subClassOf nv:Vehicle .\nnv:Vehicle rdfs:subClassOf nv:Car .\n`;
+const BROKEN = `${PREFIXES}nv:Signal rdfs:subClassOf nv:Equipment .\nnv:Lamp rdfs:subClassOf nv:Signal\nnv:Mast rdfs:subClassOf .\n`;
+
+/** A fresh temporary folder holding the given files. */
+function folderWith(files: Record<string, string>): string {
+  const dir = mkdtempSync(path.join(tmpdir(), 'isapart-cli-'));
+  for (const [name, text] of Object.entries(files)) {
+    mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
+    writeFileSync(path.join(dir, name), text);
+  }
+  return dir;
+}
+
+/** Runs the CLI in a folder and returns exit code and output. */
+async function run(dir: string, args: string[], input = '') {
+  const terminal = fakeTerminal(dir, input);
+  const code = await main(args, terminal);
+  return { code, out: terminal.stdout.join(''), err: terminal.stderr.join('') };
+}
+
+describe('isapart check', () => {
+  it('exits 0 on a clean hierarchy', async () => {
+    const dir = folderWith({ 'clean.ttl': CLEAN });
+    const result = await run(dir, ['check', 'clean.ttl', '--root', 'https://data.northvale-rail.example/def/Asset']);
+    expect(result.code).toBe(0);
+    expect(result.out).toMatch(/0 errors/);
+  });
+
+  it('exits 1 on an error-level finding and names the rule and location', async () => {
+    const dir = folderWith({ 'cycle.ttl': CYCLE });
+    const result = await run(dir, ['check', 'cycle.ttl']);
+    expect(result.code).toBe(1);
+    expect(result.out).toContain('subclass-cycle');
+    expect(result.out).toMatch(/cycle\.ttl:\d+:\d+/);
+  });
+
+  it('exits 0 with --fail-on never and 1 with --fail-on note when only notes are found', async () => {
+    const dir = folderWith({ 'clean.ttl': CLEAN });
+    expect((await run(dir, ['check', 'clean.ttl', '--fail-on', 'never'])).code).toBe(0);
+    // without --root, nv:Asset is an orphan class (a note)
+    expect((await run(dir, ['check', 'clean.ttl', '--fail-on', 'note'])).code).toBe(1);
+  });
+
+  it('exits 2 on a broken file beside a good one, and still reports the good one', async () => {
+    const dir = folderWith({ 'a-broken.ttl': BROKEN, 'b-cycle.ttl': CYCLE });
+    const result = await run(dir, ['check', '.', '-f', 'json']);
+    expect(result.code).toBe(2);
+    const report = JSON.parse(result.out);
+    expect(report.inputErrors.length).toBeGreaterThan(0);
+    expect(report.inputErrors[0].file).toContain('a-broken.ttl');
+    expect(report.inputErrors[0].line).toBe(6);
+    expect(report.findings.some((f: { ruleId: string }) => f.ruleId === 'subclass-cycle')).toBe(true);
+  });
+
+  it('reads standard input with a sniffed format', async () => {
+    const dir = folderWith({});
+    const result = await run(dir, ['check', '-', '-f', 'json'], CYCLE);
+    expect(result.code).toBe(1);
+    const report = JSON.parse(result.out);
+    expect(report.findings.map((f: { ruleId: string }) => f.ruleId)).toContain('subclass-cycle');
+  });
+
+  it('lints a folder recursively', async () => {
+    const dir = folderWith({ 'data/one/a.ttl': CLEAN, 'data/two/b.ttl': CYCLE, 'data/notes.txt': 'not rdf' });
+    const result = await run(dir, ['check', 'data', '-f', 'json']);
+    const report = JSON.parse(result.out);
+    expect(report.inputs.map((i: { file: string }) => i.file).sort()).toEqual(['data/one/a.ttl', 'data/two/b.ttl']);
+  });
+
+  it('writes -o atomically and prints nothing on stdout', async () => {
+    const dir = folderWith({ 'cycle.ttl': CYCLE });
+    const result = await run(dir, ['check', 'cycle.ttl', '-f', 'sarif', '-o', 'out.sarif']);
+    expect(result.code).toBe(1);
+    expect(result.out).toBe('');
+    const sarif = JSON.parse(readFileSync(path.join(dir, 'out.sarif'), 'utf8'));
+    expect(sarif.version).toBe('2.1.0');
+    expect(readdirSync(dir).filter((name) => name.endsWith('.tmp'))).toEqual([]);
+  });
+
+  it('refuses a malformed --rule with exit 2', async () => {
+    const dir = folderWith({ 'clean.ttl': CLEAN });
+    const result = await run(dir, ['check', 'clean.ttl', '--rule', 'orphan-class=loud']);
+    expect(result.code).toBe(2);
+    expect(result.err).toContain('ID=LEVEL');
+  });
+
+  it('turns a rule off with --rule ID=off', async () => {
+    const dir = folderWith({ 'cycle.ttl': CYCLE });
+    const result = await run(dir, ['check', 'cycle.ttl', '--rule', 'subclass-cycle=off', '-f', 'json']);
+    const report = JSON.parse(result.out);
+    expect(report.findings.map((f: { ruleId: string }) => f.ruleId)).not.toContain('subclass-cycle');
+  });
+
+  it('rejects an unknown option with exit 2', async () => {
+    const dir = folderWith({});
+    expect((await run(dir, ['check', '--formt', 'json'])).code).toBe(2);
+  });
+
+  it('teaches in --help: examples, exit codes, suppression', async () => {
+    const result = await run(folderWith({}), ['check', '--help']);
+    expect(result.code).toBe(0);
+    expect(result.out).toContain('Examples:');
+    expect(result.out).toContain('Exit codes');
+    expect(result.out).toContain('isapart-allow');
+  });
+});
+
+describe('the isapart binary', () => {
+  it('runs as a process with the exit code of the run', () => {
+    const root = path.resolve(__dirname, '../..');
+    const dir = folderWith({ 'cycle.ttl': CYCLE });
+    const run = spawnSync(process.execPath, [path.join(root, 'bin/isapart.js'), 'check', path.join(dir, 'cycle.ttl')], {
+      encoding: 'utf8',
+      env: { ...process.env, NO_COLOR: '1' },
+    });
+    expect(run.status).toBe(1);
+    expect(run.stdout).toContain('subclass-cycle');
+    expect(run.stdout).not.toMatch(/\u001b\[/);
+  });
+
+  it('prints its version', () => {
+    const root = path.resolve(__dirname, '../..');
+    const version = JSON.parse(readFileSync(path.join(root, 'package.json'), 'utf8')).version;
+    expect(execFileSync(process.execPath, [path.join(root, 'bin/isapart.js'), '--version'], { encoding: 'utf8' }).trim()).toBe(version);
+  });
+});
