@@ -1,0 +1,208 @@
+// The SARIF 2.1.0 report: one run with the rules, results, artifacts and the invocation's notifications.
+import type { Finding, RuleFailure, Suppression } from '../engine/finding.js';
+import type { InputError, Position, RdfFormat, Statement } from '../load/statement.js';
+import type { ReportContext, RuleInUse } from './context.js';
+import { compareText, primaryPosition, sortFindings } from './findings-summary.js';
+import { fileUri, folderUri, isRelativeShownPath, relativePath, STDIN_FILE } from './paths.js';
+import { createTermWriter, type TermWriter } from './statement-text.js';
+
+/** The schema a SARIF 2.1.0 log names: the id of the OASIS schema (test/standards/oasis-sarif). */
+export const SARIF_SCHEMA_URI = 'https://docs.oasis-open.org/sarif/sarif/v2.1.0/errata01/os/schemas/sarif-schema-2.1.0.json';
+
+/** The key of isapart's fingerprint in `partialFingerprints`. */
+export const FINGERPRINT_KEY = 'isapart/v1';
+
+/** The uriBaseId that relative artifact URIs resolve against: the folder the run started in. */
+export const PROJECT_ROOT_BASE_ID = 'PROJECTROOT';
+
+// Registered media types of the RDF syntaxes (W3C RDF 1.1 Turtle, TriG, N-Triples, N-Quads, their IANA sections).
+const MEDIA_TYPES: Record<RdfFormat, string> = {
+  turtle: 'text/turtle',
+  trig: 'application/trig',
+  'n-triples': 'application/n-triples',
+  'n-quads': 'application/n-quads',
+};
+
+// Notification descriptors of the driver, in this order (notifications refer to them by index).
+const NOTIFICATIONS = [
+  { id: 'input-error', shortDescription: { text: 'A source, statement or config entry could not be read.' } },
+  { id: 'rule-failure', shortDescription: { text: 'A rule failed while running; its findings are missing.' } },
+];
+const INPUT_ERROR_NOTIFICATION = 0;
+const RULE_FAILURE_NOTIFICATION = 1;
+
+type SarifObject = Record<string, unknown>;
+
+interface SarifWriter {
+  cwd: string;
+  terms: TermWriter;
+  /** Shown file path → index in `run.artifacts`. */
+  artifactIndex: Map<string, number>;
+  /** Rule id → index in `tool.driver.rules`. */
+  ruleIndex: Map<string, number>;
+}
+
+/** Renders the run as a SARIF 2.1.0 log (2-space indentation, trailing newline). */
+export function toSarif(findings: Finding[], context: ReportContext): string {
+  const rules = [...context.rules].sort((a, b) => compareText(a.rule.id, b.rule.id));
+  const writer: SarifWriter = {
+    cwd: context.cwd,
+    terms: createTermWriter(),
+    artifactIndex: new Map(context.sources.map((source, index) => [relativePath(source.file, context.cwd), index])),
+    ruleIndex: new Map(rules.map((ruleInUse, index) => [ruleInUse.rule.id, index])),
+  };
+  const notifications = [
+    ...context.inputErrors.map((error) => inputErrorNotification(error, writer)),
+    ...context.ruleFailures.map((failure) => ruleFailureNotification(failure, writer)),
+  ];
+  const log = {
+    $schema: SARIF_SCHEMA_URI,
+    version: '2.1.0',
+    runs: [
+      {
+        tool: {
+          driver: {
+            name: context.toolName,
+            version: context.toolVersion,
+            rules: rules.map(ruleDescriptor),
+            notifications: NOTIFICATIONS,
+          },
+        },
+        invocations: [
+          {
+            // SARIF 2.1.0: an error-level tool execution notification means the run did not succeed.
+            executionSuccessful: notifications.length === 0,
+            commandLine: context.commandLine,
+            startTimeUtc: context.startTime.toISOString(),
+            endTimeUtc: context.endTime.toISOString(),
+            workingDirectory: { uri: folderUri(context.cwd) },
+            ...(notifications.length > 0 ? { toolExecutionNotifications: notifications } : {}),
+          },
+        ],
+        originalUriBaseIds: { [PROJECT_ROOT_BASE_ID]: { uri: folderUri(context.cwd) } },
+        artifacts: context.sources.map((source) => ({
+          location: artifactLocation(source.file, writer),
+          mimeType: MEDIA_TYPES[source.format],
+          roles: ['analysisTarget'],
+          properties: { format: source.format, statements: source.statements },
+        })),
+        columnKind: 'utf16CodeUnits',
+        results: sortFindings(findings).map((finding) => result(finding, writer)),
+      },
+    ],
+  };
+  return `${JSON.stringify(log, null, 2)}\n`;
+}
+
+function ruleDescriptor(ruleInUse: RuleInUse): SarifObject {
+  const { rule, level } = ruleInUse;
+  const examples = [
+    rule.examples.flagged.trim() === '' ? '' : `Flagged (Turtle):\n${rule.examples.flagged.trimEnd()}`,
+    rule.examples.clean.trim() === '' ? '' : `Clean (Turtle):\n${rule.examples.clean.trimEnd()}`,
+  ].filter((text) => text !== '');
+  return {
+    id: rule.id,
+    shortDescription: { text: rule.summary },
+    fullDescription: { text: rule.description.trim() },
+    help: { text: [rule.summary, rule.description.trim(), ...examples].join('\n\n') },
+    defaultConfiguration: level === 'off' ? { enabled: false, level: rule.level } : { level },
+  };
+}
+
+function result(finding: Finding, writer: SarifWriter): SarifObject {
+  const position = primaryPosition(finding);
+  const primary: SarifObject = position ? { physicalLocation: physicalLocation(position, writer) } : {};
+  if (finding.focus !== '') primary.logicalLocations = [{ fullyQualifiedName: finding.focus }];
+  const index = writer.ruleIndex.get(finding.ruleId);
+  const written: SarifObject = {
+    ruleId: finding.ruleId,
+    ...(index === undefined ? {} : { ruleIndex: index }),
+    level: finding.level,
+    message: { text: finding.message },
+    locations: Object.keys(primary).length > 0 ? [primary] : [],
+  };
+  if (finding.evidence.length > 0) {
+    written.relatedLocations = finding.evidence.map((statement, evidenceIndex) => ({
+      id: evidenceIndex,
+      physicalLocation: physicalLocation(statement.position, writer),
+      message: { text: writer.terms.statement(statement) },
+    }));
+  }
+  // SARIF 2.1.0: producers fill partialFingerprints and leave fingerprints to result management systems.
+  written.partialFingerprints = { [FINGERPRINT_KEY]: finding.fingerprint };
+  if (finding.suppression) written.suppressions = [suppression(finding.suppression, writer)];
+  const properties: SarifObject = { nodes: [...finding.nodes] };
+  // A SARIF fix must carry artifactChanges with deleted regions; statements know only where they
+  // start, so the proposed removal travels as a property until fixes know statement extents.
+  if (finding.fix) properties.fix = proposedFix(finding.fix.remove, writer);
+  written.properties = properties;
+  return written;
+}
+
+function proposedFix(remove: Statement[], writer: SarifWriter): SarifObject {
+  const statements = remove.map((statement) => writer.terms.statement(statement));
+  return {
+    description: `Remove ${remove.length === 1 ? 'the statement' : `${remove.length} statements`}: ${statements.join('; ')}`,
+    remove: remove.map((statement, index) => ({
+      statement: statements[index],
+      file: relativePath(statement.position.file, writer.cwd),
+      line: statement.position.line,
+      column: statement.position.column,
+    })),
+  };
+}
+
+function suppression(allowed: Suppression, writer: SarifWriter): SarifObject {
+  return {
+    kind: allowed.kind,
+    status: 'accepted',
+    justification: allowed.justification,
+    location: { physicalLocation: physicalLocation({ file: allowed.file, line: allowed.line, column: 0 }, writer) },
+  };
+}
+
+function inputErrorNotification(error: InputError, writer: SarifWriter): SarifObject {
+  return {
+    level: 'error',
+    message: { text: error.hint ? `${error.message} Hint: ${error.hint}` : error.message },
+    locations: [{ physicalLocation: physicalLocation(error, writer) }],
+    descriptor: { id: NOTIFICATIONS[INPUT_ERROR_NOTIFICATION].id, index: INPUT_ERROR_NOTIFICATION },
+  };
+}
+
+function ruleFailureNotification(failure: RuleFailure, writer: SarifWriter): SarifObject {
+  const index = writer.ruleIndex.get(failure.ruleId);
+  return {
+    level: 'error',
+    message: { text: `The rule ${failure.ruleId} failed: ${failure.message}` },
+    descriptor: { id: NOTIFICATIONS[RULE_FAILURE_NOTIFICATION].id, index: RULE_FAILURE_NOTIFICATION },
+    associatedRule: index === undefined ? { id: failure.ruleId } : { id: failure.ruleId, index },
+  };
+}
+
+// SARIF 2.1.0 regions are 1-based: a line or column below 1 (unknown) is left out.
+function physicalLocation(position: Position, writer: SarifWriter): SarifObject {
+  const region: SarifObject = {};
+  if (position.line >= 1) {
+    region.startLine = position.line;
+    if (position.column >= 1) region.startColumn = position.column;
+  }
+  return {
+    artifactLocation: artifactLocation(position.file, writer),
+    ...(Object.keys(region).length > 0 ? { region } : {}),
+  };
+}
+
+function artifactLocation(file: string, writer: SarifWriter): SarifObject {
+  if (file === STDIN_FILE) {
+    const index = writer.artifactIndex.get(STDIN_FILE);
+    return { ...(index === undefined ? {} : { index }), description: { text: 'standard input' } };
+  }
+  const shown = relativePath(file, writer.cwd);
+  const index = writer.artifactIndex.get(shown);
+  return {
+    uri: fileUri(file, writer.cwd),
+    ...(isRelativeShownPath(shown) ? { uriBaseId: PROJECT_ROOT_BASE_ID } : {}),
+    ...(index === undefined ? {} : { index }),
+  };
+}

@@ -1,0 +1,137 @@
+// The text report: findings grouped by file for a terminal, coloured with chalk when asked.
+import { Chalk, type ChalkInstance } from 'chalk';
+import type { Finding, Level } from '../engine/finding.js';
+import type { InputError, Position } from '../load/statement.js';
+import type { ReportContext } from './context.js';
+import { compareText, countFindings, LEVELS, primaryPosition, sortFindings, type FindingCounts } from './findings-summary.js';
+import { paintForLevel } from './level-paint.js';
+import { relativePath } from './paths.js';
+import { createTermWriter, type TermWriter } from './statement-text.js';
+
+/** The report context, plus prefixes (prefix → namespace IRI) for writing IRIs as prefixed names. */
+export interface TextReportContext extends ReportContext {
+  prefixes?: Record<string, string>;
+}
+
+const LEVEL_WIDTH = 'warning'.length;
+const NO_LOCATION = '(no location)';
+const FINDING_INDENT = '  ';
+const DETAIL_INDENT = '      ';
+
+interface TextWriter {
+  paint: ChalkInstance;
+  terms: TermWriter;
+  cwd: string;
+}
+
+/** Renders findings, input errors and rule failures as text, ending with a one-line summary. */
+export function toText(findings: Finding[], context: TextReportContext): string {
+  const writer: TextWriter = {
+    // Level 1 (16 colours) when colour is on: fixed, so the output never depends on the terminal.
+    paint: new Chalk({ level: context.color ? 1 : 0 }),
+    terms: createTermWriter(context.prefixes),
+    cwd: context.cwd,
+  };
+  const sections = [
+    inputErrorsSection(context.inputErrors, writer),
+    ruleFailuresSection(context, writer),
+    ...fileSections(findings.filter((finding) => !finding.suppression), writer),
+    allowedSection(findings.filter((finding) => finding.suppression), writer),
+  ].filter((section) => section.length > 0);
+  sections.push([summaryLine(countFindings(findings, context), writer.paint)]);
+  return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
+}
+
+function inputErrorsSection(errors: InputError[], writer: TextWriter): string[] {
+  if (errors.length === 0) return [];
+  const lines = [writer.paint.bold(`input errors (${errors.length})`)];
+  for (const error of errors) {
+    lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(error, writer.cwd))}  ${levelWord('error', writer.paint)}  ${error.message}`);
+    if (error.hint) lines.push(`${DETAIL_INDENT}hint: ${error.hint}`);
+  }
+  return lines;
+}
+
+function ruleFailuresSection(context: ReportContext, writer: TextWriter): string[] {
+  if (context.ruleFailures.length === 0) return [];
+  const lines = [writer.paint.bold(`rule failures (${context.ruleFailures.length})`)];
+  for (const failure of context.ruleFailures) {
+    lines.push(`${FINDING_INDENT}${levelWord('error', writer.paint)}  ${failure.ruleId}  the rule failed: ${failure.message}`);
+  }
+  return lines;
+}
+
+function fileSections(findings: Finding[], writer: TextWriter): string[][] {
+  const byFile = new Map<string, Finding[]>();
+  for (const finding of sortFindings(findings)) {
+    const position = primaryPosition(finding);
+    const file = position ? relativePath(position.file, writer.cwd) : NO_LOCATION;
+    const group = byFile.get(file);
+    if (group) group.push(finding);
+    else byFile.set(file, [finding]);
+  }
+  const files = [...byFile.keys()].sort(compareText);
+  return files.map((file) => [writer.paint.bold.underline(file), ...byFile.get(file)!.flatMap((finding) => findingLines(finding, writer))]);
+}
+
+function findingLines(finding: Finding, writer: TextWriter): string[] {
+  const lines = [`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`];
+  for (const statement of finding.evidence) {
+    lines.push(`${DETAIL_INDENT}${writer.paint.dim(positionText(statement.position, writer.cwd))}  ${writer.terms.statement(statement)}`);
+  }
+  if (finding.evidence.length === 0 && finding.location) {
+    lines.push(`${DETAIL_INDENT}${writer.paint.dim(positionText(finding.location, writer.cwd))}`);
+  }
+  for (const statement of finding.fix?.remove ?? []) {
+    lines.push(`${DETAIL_INDENT}fix: remove ${writer.paint.dim(positionText(statement.position, writer.cwd))}  ${writer.terms.statement(statement)}`);
+  }
+  return lines;
+}
+
+function allowedSection(suppressed: Finding[], writer: TextWriter): string[] {
+  if (suppressed.length === 0) return [];
+  const perRule = new Map<string, { inSource: number; external: number }>();
+  for (const finding of suppressed) {
+    const counts = perRule.get(finding.ruleId) ?? { inSource: 0, external: 0 };
+    counts[finding.suppression!.kind] += 1;
+    perRule.set(finding.ruleId, counts);
+  }
+  const lines = [writer.paint.bold(`allowed (${suppressed.length})`)];
+  for (const ruleId of [...perRule.keys()].sort(compareText)) {
+    const counts = perRule.get(ruleId)!;
+    const ways = [
+      counts.inSource > 0 ? `${counts.inSource} by allow comment` : '',
+      counts.external > 0 ? `${counts.external} by config` : '',
+    ].filter((way) => way !== '');
+    lines.push(`${FINDING_INDENT}${ruleId}  ${counts.inSource + counts.external} allowed (${ways.join(', ')})`);
+  }
+  return lines;
+}
+
+function summaryLine(counts: FindingCounts, paint: ChalkInstance): string {
+  const levelCounts = LEVELS.map((level) => {
+    const text = plural(counts[level], level);
+    return counts[level] > 0 ? paintForLevel(level, paint)(text) : text;
+  });
+  const parts = [levelCounts.join(', '), `${counts.suppressed} allowed`];
+  if (counts.inputErrors > 0) parts.push(paint.red(plural(counts.inputErrors, 'input error')));
+  if (counts.ruleFailures > 0) parts.push(paint.red(plural(counts.ruleFailures, 'rule failure')));
+  parts.push(`${plural(counts.files, 'file')} and ${plural(counts.statements, 'statement')} read`);
+  return parts.join('; ');
+}
+
+function positionText(position: Position, cwd: string): string {
+  const file = relativePath(position.file, cwd);
+  if (position.line < 1) return file;
+  return position.column < 1 ? `${file}:${position.line}` : `${file}:${position.line}:${position.column}`;
+}
+
+// Padded to the longest level word, so messages line up.
+function levelWord(level: Level, paint: ChalkInstance): string {
+  return `${paintForLevel(level, paint)(level)}${' '.repeat(LEVEL_WIDTH - level.length)}`;
+}
+
+
+function plural(count: number, noun: string): string {
+  return `${count} ${noun}${count === 1 ? '' : 's'}`;
+}
