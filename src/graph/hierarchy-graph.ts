@@ -1,5 +1,5 @@
 // The read-only typed graph every rule runs on: interned node ids and per-role adjacency.
-import type { Statement } from '../load/statement.js';
+import type { InputError, Statement } from '../load/statement.js';
 import type { Role } from '../roles/role.js';
 
 /** Kinds a node can be of; `{is: [?x, KIND]}` in a rule tests one. */
@@ -19,6 +19,8 @@ export interface GraphStats {
   axiomStatements: number;
   /** Role statements skipped because an end is a literal or an axiom structure. */
   skippedRoleStatements: number;
+  /** owl:AllDisjointClasses member lists that could not be walked (cyclic, branching, unterminated). */
+  brokenLists?: number;
   nodes: number;
 }
 
@@ -30,6 +32,8 @@ export interface GraphStats {
 export interface HierarchyGraph {
   readonly nodeCount: number;
   readonly stats: GraphStats;
+  /** Input the build could not read as stated (a literal object of a role predicate, a broken list), with position and hint. */
+  readonly problems?: readonly InputError[];
   /** The IRI or `_:label` of a node. */
   term(id: number): string;
   /** The id of an IRI or `_:label`, or -1 when the graph has no such node. */

@@ -1,0 +1,118 @@
+// Strongly connected components: Tarjan's algorithm with explicit typed-array stacks (no recursion).
+
+/** The component of every node (0..count-1, in the order Tarjan's algorithm closes them) and their count. */
+export interface ComponentAssignment {
+  component: Int32Array;
+  count: number;
+}
+
+const UNVISITED = -1;
+/** Put in a closed frame's place so its successor list can be collected. */
+const EMPTY: ArrayLike<number> = new Int32Array(0);
+
+/**
+ * Tarjan's strongly connected components over ids 0..nodeCount-1, iteratively, so a graph with a
+ * path a million nodes long needs no call stack depth. Components come out in reverse topological order.
+ */
+export function stronglyConnected(
+  nodeCount: number,
+  successors: (id: number) => ArrayLike<number>,
+): ComponentAssignment {
+  const component = new Int32Array(nodeCount).fill(UNVISITED);
+  const discovery = new Int32Array(nodeCount).fill(UNVISITED);
+  const lowLink = new Int32Array(nodeCount);
+  const onStack = new Uint8Array(nodeCount);
+  // The Tarjan stack of nodes not yet assigned to a component.
+  const memberStack = new Int32Array(nodeCount);
+  let memberTop = 0;
+  // The depth-first call stack: the node of each frame and how far its successor list was walked.
+  const frameNode = new Int32Array(nodeCount);
+  const frameNext = new Int32Array(nodeCount);
+  const frameSuccessors: ArrayLike<number>[] = [];
+  let frameTop = 0;
+  let nextDiscovery = 0;
+  let count = 0;
+
+  for (let root = 0; root < nodeCount; root++) {
+    if (discovery[root] !== UNVISITED) continue;
+    discovery[root] = lowLink[root] = nextDiscovery++;
+    memberStack[memberTop++] = root;
+    onStack[root] = 1;
+    frameNode[frameTop] = root;
+    frameNext[frameTop] = 0;
+    frameSuccessors[frameTop] = successors(root);
+    frameTop++;
+
+    while (frameTop > 0) {
+      const frame = frameTop - 1;
+      const node = frameNode[frame];
+      const nodeSuccessors = frameSuccessors[frame];
+      if (frameNext[frame] < nodeSuccessors.length) {
+        const target = nodeSuccessors[frameNext[frame]++];
+        if (discovery[target] === UNVISITED) {
+          discovery[target] = lowLink[target] = nextDiscovery++;
+          memberStack[memberTop++] = target;
+          onStack[target] = 1;
+          frameNode[frameTop] = target;
+          frameNext[frameTop] = 0;
+          frameSuccessors[frameTop] = successors(target);
+          frameTop++;
+        } else if (onStack[target] === 1 && discovery[target] < lowLink[node]) {
+          lowLink[node] = discovery[target];
+        }
+        continue;
+      }
+      // Every successor walked: close the node, then hand its low link back to its caller.
+      if (lowLink[node] === discovery[node]) {
+        let member: number;
+        do {
+          member = memberStack[--memberTop];
+          onStack[member] = 0;
+          component[member] = count;
+        } while (member !== node);
+        count++;
+      }
+      frameSuccessors[frame] = EMPTY;
+      frameTop--;
+      if (frameTop > 0) {
+        const caller = frameNode[frameTop - 1];
+        if (lowLink[node] < lowLink[caller]) lowLink[caller] = lowLink[node];
+      }
+    }
+  }
+  return { component, count };
+}
+
+/**
+ * The components that hold a cycle: more than one member, or one member with a self-loop.
+ * Members ascending; components ordered by their smallest member.
+ */
+export function cyclicComponents(
+  nodeCount: number,
+  successors: (id: number) => ArrayLike<number>,
+  hasSelfLoop: (id: number) => boolean = (id) => includes(successors(id), id),
+): number[][] {
+  const { component, count } = stronglyConnected(nodeCount, successors);
+  const sizes = new Int32Array(count);
+  for (let id = 0; id < nodeCount; id++) sizes[component[id]]++;
+  const groups: (number[] | undefined)[] = new Array(count);
+  const ordered: number[][] = [];
+  // Walking ids ascending gives ascending members and orders groups by their smallest member.
+  for (let id = 0; id < nodeCount; id++) {
+    const index = component[id];
+    let group = groups[index];
+    if (group === undefined) {
+      if (sizes[index] === 1 && !hasSelfLoop(id)) continue;
+      group = [];
+      groups[index] = group;
+      ordered.push(group);
+    }
+    group.push(id);
+  }
+  return ordered;
+}
+
+function includes(values: ArrayLike<number>, wanted: number): boolean {
+  for (let index = 0; index < values.length; index++) if (values[index] === wanted) return true;
+  return false;
+}

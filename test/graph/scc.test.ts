@@ -1,0 +1,95 @@
+// Strongly connected components, held against graphlib's alg.tarjan on random graphs.
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { Graph, alg } from '@dagrejs/graphlib';
+import { cyclicComponents, stronglyConnected } from '../../src/graph/scc.js';
+
+interface RandomGraph {
+  nodeCount: number;
+  edges: [number, number][];
+}
+
+const randomGraph: fc.Arbitrary<RandomGraph> = fc
+  .integer({ min: 1, max: 40 })
+  .chain((nodeCount) =>
+    fc.record({
+      nodeCount: fc.constant(nodeCount),
+      edges: fc.array(fc.tuple(fc.nat(nodeCount - 1), fc.nat(nodeCount - 1)), { maxLength: nodeCount * 3 }),
+    }),
+  );
+
+/** Sorted successor lists of a random graph. */
+function adjacency({ nodeCount, edges }: RandomGraph): number[][] {
+  const lists: number[][] = Array.from({ length: nodeCount }, () => []);
+  for (const [from, to] of edges) if (!lists[from].includes(to)) lists[from].push(to);
+  for (const list of lists) list.sort((a, b) => a - b);
+  return lists;
+}
+
+/** A partition as a sorted list of sorted member lists, so two partitions compare with toEqual. */
+function canonical(groups: number[][]): string[] {
+  return groups.map((group) => [...group].sort((a, b) => a - b).join(',')).sort();
+}
+
+describe('stronglyConnected', () => {
+  it('gives the same partition as graphlib alg.tarjan on 1,000 random graphs', () => {
+    // Reference: @dagrejs/graphlib 4 alg.tarjan, a general-purpose graph library's Tarjan SCC.
+    fc.assert(
+      fc.property(randomGraph, (graph) => {
+        const lists = adjacency(graph);
+        const reference = new Graph({ directed: true });
+        for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
+        for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
+        const expected = canonical(alg.tarjan(reference).map((group) => group.map(Number)));
+
+        const { component, count } = stronglyConnected(graph.nodeCount, (id) => lists[id]);
+        const groups: number[][] = Array.from({ length: count }, () => []);
+        for (let id = 0; id < graph.nodeCount; id++) groups[component[id]].push(id);
+        expect(groups.every((group) => group.length > 0)).toBe(true);
+        expect(canonical(groups)).toEqual(expected);
+      }),
+      { numRuns: 1000 },
+    );
+  });
+
+  it('numbers components in reverse topological order', () => {
+    // Tarjan closes a component only after every component it reaches (common practice: textbook Tarjan).
+    const lists = [[1], [2], [1, 3], []];
+    const { component, count } = stronglyConnected(4, (id) => lists[id]);
+    expect(count).toBe(3);
+    expect(component[1]).toBe(component[2]);
+    expect(component[3]).toBeLessThan(component[1]);
+    expect(component[1]).toBeLessThan(component[0]);
+  });
+});
+
+describe('cyclicComponents', () => {
+  it('keeps components of more than one member and self-loops, ordered by smallest member', () => {
+    const lists = [[0], [2], [], [4], [3, 5], [], [7], [6]];
+    expect(cyclicComponents(8, (id) => lists[id])).toEqual([[0], [3, 4], [6, 7]]);
+  });
+
+  it('uses the given self-loop test instead of scanning successors', () => {
+    const lists = [[0], [1]];
+    expect(cyclicComponents(2, (id) => lists[id], (id) => id === 1)).toEqual([[1]]);
+  });
+
+  it('matches the components of graphlib alg.findCycles on random graphs', () => {
+    // Reference: @dagrejs/graphlib 4 alg.findCycles (SCCs with more than one node or a self-loop).
+    fc.assert(
+      fc.property(randomGraph, (graph) => {
+        const lists = adjacency(graph);
+        const reference = new Graph({ directed: true });
+        for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
+        for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
+        const expected = canonical(alg.findCycles(reference).map((group) => group.map(Number)));
+        const found = cyclicComponents(graph.nodeCount, (id) => lists[id]);
+        expect(canonical(found)).toEqual(expected);
+        for (const group of found) expect(group).toEqual([...group].sort((a, b) => a - b));
+        const firsts = found.map((group) => group[0]);
+        expect(firsts).toEqual([...firsts].sort((a, b) => a - b));
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
