@@ -1,0 +1,45 @@
+// Edit distance and "did you mean" suggestions for misspelt keys, rule ids, roles and presets.
+
+/** The Levenshtein distance between two strings (insertions, deletions, substitutions), two rows of memory. */
+export function editDistance(left: string, right: string): number {
+  if (left === right) return 0;
+  let previous = new Uint32Array(right.length + 1);
+  let current = new Uint32Array(right.length + 1);
+  for (let j = 0; j <= right.length; j++) previous[j] = j;
+  for (let i = 1; i <= left.length; i++) {
+    current[0] = i;
+    const leftCode = left.charCodeAt(i - 1);
+    for (let j = 1; j <= right.length; j++) {
+      const substitution = previous[j - 1] + (leftCode === right.charCodeAt(j - 1) ? 0 : 1);
+      current[j] = Math.min(previous[j] + 1, current[j - 1] + 1, substitution);
+    }
+    [previous, current] = [current, previous];
+  }
+  return previous[right.length];
+}
+
+/**
+ * The candidate closest to a name, or undefined when none is close enough to be a likely typo:
+ * at most a third of the longer string's length (and at least 1) edits away; case is ignored.
+ */
+export function nearestName(name: string, candidates: readonly string[]): string | undefined {
+  const wanted = name.toLowerCase();
+  let best: string | undefined;
+  let bestDistance = Number.POSITIVE_INFINITY;
+  for (const candidate of candidates) {
+    const distance = editDistance(wanted, candidate.toLowerCase());
+    const allowed = Math.max(1, Math.floor(Math.max(wanted.length, candidate.length) / 3));
+    if (distance <= allowed && distance < bestDistance) {
+      best = candidate;
+      bestDistance = distance;
+    }
+  }
+  return best;
+}
+
+/** A hint for an unknown name: "did you mean `x`?" when one is close, and the list of known names. */
+export function suggestionHint(name: string, candidates: readonly string[], what: string): string {
+  const known = `known ${what}: ${candidates.join(', ')}`;
+  const nearest = nearestName(name, candidates);
+  return nearest === undefined ? known : `did you mean \`${nearest}\`? (${known})`;
+}

@@ -1,0 +1,67 @@
+// Specification of edit distance and "did you mean" hints.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { editDistance, nearestName, suggestionHint } from '../../src/config/nearest.js';
+
+/** A plain full-matrix Levenshtein distance, the textbook recurrence (Wagner–Fischer), as a reference. */
+function referenceDistance(left: string, right: string): number {
+  const table = Array.from({ length: left.length + 1 }, (_, i) => Array.from({ length: right.length + 1 }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)));
+  for (let i = 1; i <= left.length; i++) {
+    for (let j = 1; j <= right.length; j++) {
+      table[i][j] = Math.min(table[i - 1][j] + 1, table[i][j - 1] + 1, table[i - 1][j - 1] + (left[i - 1] === right[j - 1] ? 0 : 1));
+    }
+  }
+  return table[left.length][right.length];
+}
+
+describe('editDistance', () => {
+  // The classic example of Levenshtein distance: kitten -> sitting is 3 edits (from memory).
+  it('gives 3 for kitten and sitting', () => {
+    expect(editDistance('kitten', 'sitting')).toBe(3);
+  });
+
+  it('counts single insertions, deletions and substitutions', () => {
+    expect(editDistance('rule-dirs', 'rule-dir')).toBe(1);
+    expect(editDistance('rule_dirs', 'rule-dirs')).toBe(1);
+    expect(editDistance('', 'scope')).toBe(5);
+    expect(editDistance('roots', 'roots')).toBe(0);
+  });
+
+  it('agrees with the full-matrix recurrence on random strings', () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 12 }), fc.string({ maxLength: 12 }), (left, right) => {
+        expect(editDistance(left, right)).toBe(referenceDistance(left, right));
+      }),
+    );
+  });
+
+  it('is a metric: symmetric, zero only for equal strings, and obeys the triangle inequality', () => {
+    fc.assert(
+      fc.property(fc.string({ maxLength: 10 }), fc.string({ maxLength: 10 }), fc.string({ maxLength: 10 }), (a, b, c) => {
+        expect(editDistance(a, b)).toBe(editDistance(b, a));
+        expect(editDistance(a, b) === 0).toBe(a === b);
+        expect(editDistance(a, c)).toBeLessThanOrEqual(editDistance(a, b) + editDistance(b, c));
+      }),
+    );
+  });
+});
+
+describe('nearestName and suggestionHint', () => {
+  const keys = ['presets', 'roles', 'scope', 'roots', 'rules', 'rule-dirs', 'allow'];
+
+  it('suggests the closest candidate for a likely typo, ignoring case', () => {
+    expect(nearestName('rule_dirs', keys)).toBe('rule-dirs');
+    expect(nearestName('Scope', keys)).toBe('scope');
+    expect(nearestName('preset', keys)).toBe('presets');
+  });
+
+  it('suggests nothing for a name far from every candidate', () => {
+    expect(nearestName('baseline', keys)).toBeUndefined();
+    expect(nearestName('x', [])).toBeUndefined();
+  });
+
+  it('words the hint with the suggestion and the known names', () => {
+    expect(suggestionHint('alow', keys, 'keys')).toBe('did you mean `allow`? (known keys: presets, roles, scope, roots, rules, rule-dirs, allow)');
+    expect(suggestionHint('zzzzzz', ['rdfs', 'owl'], 'presets')).toBe('known presets: rdfs, owl');
+  });
+});
