@@ -57,10 +57,8 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   const { rules, errors: ruleErrors } = readRules(config);
   inputErrors.push(...ruleErrors);
 
-  const { roleMap, conflicts } = buildRoleMap(config.presets, config.roles);
-  for (const conflict of conflicts) {
-    inputErrors.push({ file: config.file ?? '<command line>', line: 0, column: 0, message: conflict });
-  }
+  // Role conflicts within the config file are reported by parseConfig at their lines.
+  const roleMap = buildRoleMap(config.presets, config.roles);
 
   const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
   inputErrors.push(...loaded.errors);
@@ -86,6 +84,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
       statements: source.statements.length,
     })),
     inputErrors,
+    inputWarnings: [...(graph.problems ?? [])],
     ruleFailures: failures,
     rules: [...rulesInUse, { rule: UNUSED_ALLOW_RULE, level: unusedLevel }],
     configFile: config.file,

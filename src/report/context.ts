@@ -19,6 +19,8 @@ export interface ReportContext {
   sources: { file: string; format: RdfFormat; statements: number }[];
   /** Syntax, input and config errors (any of them makes the run exit 2). */
   inputErrors: InputError[];
+  /** Input read but not usable as stated (a literal object of a role predicate, a broken list); no effect on the exit code. */
+  inputWarnings: InputError[];
   ruleFailures: RuleFailure[];
   /** Every known rule with its effective level (off ones included). */
   rules: RuleInUse[];

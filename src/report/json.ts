@@ -55,6 +55,7 @@ export interface JsonReport {
   inputs: { file: string; format: RdfFormat; statements: number }[];
   findings: JsonFinding[];
   inputErrors: InputError[];
+  inputWarnings: InputError[];
   ruleFailures: RuleFailure[];
 }
 
@@ -83,16 +84,21 @@ export function toJsonReport(findings: Finding[], context: ReportContext): JsonR
       statements: source.statements,
     })),
     findings: sortFindings(findings).map((finding) => jsonFinding(finding, cwd)),
-    inputErrors: context.inputErrors.map((error) => ({
-      file: relativePath(error.file, cwd),
-      line: error.line,
-      column: error.column,
-      message: error.message,
-      ...(error.hint === undefined ? {} : { hint: error.hint }),
-    })),
+    inputErrors: context.inputErrors.map((error) => jsonInputError(error, cwd)),
+    inputWarnings: (context.inputWarnings ?? []).map((warning) => jsonInputError(warning, cwd)),
     ruleFailures: context.ruleFailures.map((failure) => ({ ruleId: failure.ruleId, message: failure.message })),
   };
   return report;
+}
+
+function jsonInputError(error: InputError, cwd: string): InputError {
+  return {
+    file: relativePath(error.file, cwd),
+    line: error.line,
+    column: error.column,
+    message: error.message,
+    ...(error.hint === undefined ? {} : { hint: error.hint }),
+  };
 }
 
 /** The findings document as text: 2-space indentation, fixed key order, trailing newline. */

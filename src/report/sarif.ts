@@ -52,8 +52,9 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
     ruleIndex: new Map(rules.map((ruleInUse, index) => [ruleInUse.rule.id, index])),
   };
   const notifications = [
-    ...context.inputErrors.map((error) => inputErrorNotification(error, writer)),
+    ...context.inputErrors.map((error) => inputErrorNotification(error, 'error', writer)),
     ...context.ruleFailures.map((failure) => ruleFailureNotification(failure, writer)),
+    ...(context.inputWarnings ?? []).map((warning) => inputErrorNotification(warning, 'warning', writer)),
   ];
   const log = {
     $schema: SARIF_SCHEMA_URI,
@@ -161,9 +162,9 @@ function suppression(allowed: Suppression, writer: SarifWriter): SarifObject {
   };
 }
 
-function inputErrorNotification(error: InputError, writer: SarifWriter): SarifObject {
+function inputErrorNotification(error: InputError, level: 'error' | 'warning', writer: SarifWriter): SarifObject {
   return {
-    level: 'error',
+    level,
     message: { text: error.hint ? `${error.message} Hint: ${error.hint}` : error.message },
     locations: [{ physicalLocation: physicalLocation(error, writer) }],
     descriptor: { id: NOTIFICATIONS[INPUT_ERROR_NOTIFICATION].id, index: INPUT_ERROR_NOTIFICATION },

@@ -34,6 +34,7 @@ export function toText(findings: Finding[], context: TextReportContext): string 
   };
   const sections = [
     inputErrorsSection(context.inputErrors, writer),
+    inputWarningsSection(context.inputWarnings ?? [], writer),
     ruleFailuresSection(context, writer),
     ...fileSections(findings.filter((finding) => !finding.suppression), writer),
     allowedSection(findings.filter((finding) => finding.suppression), writer),
@@ -48,6 +49,16 @@ function inputErrorsSection(errors: InputError[], writer: TextWriter): string[] 
   for (const error of errors) {
     lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(error, writer.cwd))}  ${levelWord('error', writer.paint)}  ${error.message}`);
     if (error.hint) lines.push(`${DETAIL_INDENT}hint: ${error.hint}`);
+  }
+  return lines;
+}
+
+function inputWarningsSection(warnings: InputError[], writer: TextWriter): string[] {
+  if (warnings.length === 0) return [];
+  const lines = [writer.paint.bold(`input warnings (${warnings.length})`)];
+  for (const warning of warnings) {
+    lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(warning, writer.cwd))}  ${levelWord('warning', writer.paint)}  ${warning.message}`);
+    if (warning.hint) lines.push(`${DETAIL_INDENT}hint: ${warning.hint}`);
   }
   return lines;
 }

@@ -50,7 +50,7 @@ describe('toJson', () => {
     const text = toJson(ALL_FINDINGS, context({ problems: true }));
     const document = JSON.parse(text);
     expect(text).toBe(`${JSON.stringify(document, null, 2)}\n`);
-    expect(Object.keys(document)).toEqual(['format', 'version', 'tool', 'configFile', 'summary', 'inputs', 'findings', 'inputErrors', 'ruleFailures']);
+    expect(Object.keys(document)).toEqual(['format', 'version', 'tool', 'configFile', 'summary', 'inputs', 'findings', 'inputErrors', 'inputWarnings', 'ruleFailures']);
     expect(Object.keys(findingFor(document, PANTOGRAPH_FINDING.fingerprint))).toEqual(['ruleId', 'level', 'focus', 'nodes', 'message', 'fingerprint', 'evidence', 'fix']);
     expect(Object.keys(findingFor(document, ALLOWED_BY_CONFIG.fingerprint))).toEqual(['ruleId', 'level', 'focus', 'nodes', 'message', 'fingerprint', 'evidence', 'suppression']);
     expect(document.format).toBe(JSON_REPORT_FORMAT);
@@ -83,6 +83,13 @@ describe('toJson', () => {
     });
     expect(findingFor(document, ALLOWED_BY_CONFIG.fingerprint).suppression).toEqual({ kind: 'external', justification: 'legacy catalogue term', file: 'isapart.yaml', line: 9 });
     expect(findingFor(document, UNUSED_ALLOW_FINDING.fingerprint).location).toEqual({ file: 'data/rolling-stock.ttl', line: 31, column: 40 });
+  });
+
+  it('lists input warnings apart from input errors', () => {
+    const document = fullDocument();
+    expect(document.inputWarnings).toEqual([
+      { file: 'data/rolling-stock.ttl', line: 12, column: 1, message: 'the object of dcterms:isPartOf is a literal, so no part-of edge was made', hint: 'write the whole as an IRI' },
+    ]);
   });
 
   it('writes a literal object as {value, datatype, language} and a fix as statements', () => {

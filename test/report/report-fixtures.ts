@@ -169,6 +169,10 @@ export const INPUT_ERRORS: InputError[] = [
   { file: `${CWD}/data/missing.ttl`, line: 0, column: 0, message: 'No such file', hint: 'check the path' },
 ];
 
+export const INPUT_WARNINGS: InputError[] = [
+  { file: `${CWD}/data/rolling-stock.ttl`, line: 12, column: 1, message: 'the object of dcterms:isPartOf is a literal, so no part-of edge was made', hint: 'write the whole as an IRI' },
+];
+
 export const RULE_FAILURES: RuleFailure[] = [{ ruleId: 'subclass-cycle', message: 'path compilation failed at "subclass-of+"' }];
 
 /** Every finding of the full run, in an order the reporters must not depend on. */
@@ -186,6 +190,7 @@ export function context(options: { color?: boolean; problems?: boolean } = {}): 
       { file: SIGNALS, format: 'n-triples', statements: 8 },
     ],
     inputErrors: options.problems ? INPUT_ERRORS : [],
+    inputWarnings: options.problems ? INPUT_WARNINGS : [],
     ruleFailures: options.problems ? RULE_FAILURES : [],
     rules: RULES_IN_USE,
     configFile: CONFIG,

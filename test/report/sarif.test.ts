@@ -133,7 +133,9 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
 
   it('writes an input error as a notification with its location and hint, and a rule failure with its rule', () => {
     const log = fullLog();
-    const [broken, missing, failure] = log.runs[0].invocations[0].toolExecutionNotifications;
+    const [broken, missing, failure, warning] = log.runs[0].invocations[0].toolExecutionNotifications;
+    expect(warning.level).toBe('warning');
+    expect(warning.message.text).toContain('is a literal');
     expect(broken.level).toBe('error');
     expect(broken.message.text).toBe('Expected a term after the predicate, found "." Hint: write an object before the full stop');
     expect(broken.locations[0].physicalLocation).toEqual({

@@ -39,6 +39,7 @@ describe('toText', () => {
     expect(text).toContain('  data/broken.ttl:4:17  error    Expected a term after the predicate, found "."\n      hint: write an object before the full stop\n');
     expect(text).toContain('  data/missing.ttl  error    No such file\n      hint: check the path\n');
     expect(text).toContain('rule failures (1)\n  error    subclass-cycle  the rule failed: path compilation failed at "subclass-of+"\n');
+    expect(text).toContain('input warnings (1)\n  data/rolling-stock.ttl:12:1  warning  the object of dcterms:isPartOf is a literal');
     expect(text.indexOf('rule failures')).toBeLessThan(text.indexOf('data/infrastructure.trig'));
   });
 
