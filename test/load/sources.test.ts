@@ -1,0 +1,166 @@
+// loadSources: files, folders, stdin and gzip, in a deterministic order, with errors instead of silent drops.
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { Readable } from 'node:stream';
+import { pathToFileURL } from 'node:url';
+import { gzipSync } from 'node:zlib';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadSources } from '../../src/load/sources.js';
+
+const NV = 'https://data.northvale-rail.example/def/';
+const ROLLING_STOCK = `@prefix nv: <${NV}> .\nnv:Pantograph nv:partOf nv:Locomotive .\nnv:Locomotive a nv:RollingStock .\n`;
+const INFRASTRUCTURE = `<${NV}Sleeper> <${NV}partOf> <${NV}Track> .\n`;
+const FLEET_TRIG = `@prefix nv: <${NV}> .\nnv:fleet-2024 { nv:Car nv:partOf nv:Train . }\n`;
+
+let root: string;
+
+beforeAll(() => {
+  root = mkdtempSync(join(tmpdir(), 'isapart-load-'));
+  const write = (relative: string, content: string | Uint8Array): void => {
+    const path = join(root, relative);
+    mkdirSync(join(path, '..'), { recursive: true });
+    writeFileSync(path, content);
+  };
+  write('demo/rolling-stock.ttl', ROLLING_STOCK);
+  write('demo/infrastructure/track.nt', INFRASTRUCTURE);
+  write('demo/infrastructure/fleet.trig.gz', gzipSync(FLEET_TRIG));
+  write('demo/README.md', '# not RDF\n');
+  write('demo/.cache/old.ttl', ROLLING_STOCK);
+  write('demo/node_modules/vocab/terms.ttl', ROLLING_STOCK);
+  write('gzip-under-plain-name.ttl', gzipSync(ROLLING_STOCK));
+  write('plain-under-gz-name.nt.gz', INFRASTRUCTURE);
+  write('truncated.ttl.gz', gzipSync(ROLLING_STOCK).subarray(0, 20));
+  write('broken.ttl', `@prefix nv: <${NV}> .\nnv:Axle nv:partOf nv:Bogie .\nnv:Wheel nv:partOf\n`);
+  write('with-bom.ttl', `\ufeff<${NV}Bogie> <${NV}partOf> <${NV}Car> .\n`);
+  write('latin1.ttl', Buffer.concat([Buffer.from(`<${NV}Car> <${NV}label> "Wagen`), Buffer.from([0xe4]), Buffer.from('" .\n')]));
+  write('export.data', ROLLING_STOCK);
+  write('notes.txt', 'Northvale Rail asset graph, see the wiki.\n');
+  write('relative.ttl', '<Car> <partOf> <Train> .\n');
+  mkdirSync(join(root, 'empty-folder'));
+});
+
+afterAll(() => {
+  rmSync(root, { recursive: true, force: true });
+});
+
+describe('loadSources on folders', () => {
+  it('walks a folder recursively in sorted order, skipping node_modules and dot-folders, naming files as given', async () => {
+    const result = await loadSources(['demo'], { cwd: root });
+    expect(result.errors).toEqual([]);
+    expect(result.sources.map((source) => [source.file, source.format, source.statements.length])).toEqual([
+      ['demo/infrastructure/fleet.trig.gz', 'trig', 1],
+      ['demo/infrastructure/track.nt', 'n-triples', 1],
+      ['demo/rolling-stock.ttl', 'turtle', 2],
+    ]);
+    expect(result.sources[0].statements[0].position.file).toBe('demo/infrastructure/fleet.trig.gz');
+    expect(result.skippedFiles).toEqual(['demo/README.md']);
+  });
+
+  it('keeps the folder as the user wrote it, trailing slash or not', async () => {
+    const result = await loadSources(['./demo/'], { cwd: root });
+    expect(result.sources.map((source) => source.file)).toEqual([
+      './demo/infrastructure/fleet.trig.gz',
+      './demo/infrastructure/track.nt',
+      './demo/rolling-stock.ttl',
+    ]);
+  });
+
+  it('reports a folder without RDF files', async () => {
+    const result = await loadSources(['empty-folder'], { cwd: root });
+    expect(result.sources).toEqual([]);
+    expect(result.errors).toHaveLength(1);
+    expect(result.errors[0]).toMatchObject({ file: 'empty-folder', line: 0, column: 0 });
+    expect(result.errors[0].hint).toContain('.ttl, .trig, .nt, .nq');
+  });
+});
+
+describe('loadSources on files', () => {
+  it('reads sources in argument order, each file once', async () => {
+    const result = await loadSources(['demo/rolling-stock.ttl', 'relative.ttl', 'demo/rolling-stock.ttl'], { cwd: root });
+    expect(result.sources.map((source) => source.file)).toEqual(['demo/rolling-stock.ttl', 'relative.ttl']);
+  });
+
+  it('resolves relative IRIs against the file URL', async () => {
+    const result = await loadSources(['relative.ttl'], { cwd: root });
+    expect(result.sources[0].statements[0].subject).toBe(pathToFileURL(join(root, 'Car')).href);
+  });
+
+  it('recognises gzip by its magic bytes, not by its name', async () => {
+    const result = await loadSources(['gzip-under-plain-name.ttl', 'plain-under-gz-name.nt.gz'], { cwd: root });
+    expect(result.errors).toEqual([]);
+    expect(result.sources.map((source) => [source.format, source.statements.length])).toEqual([
+      ['turtle', 2],
+      ['n-triples', 1],
+    ]);
+  });
+
+  it('reports a truncated gzip file as an error rather than reading part of it', async () => {
+    const result = await loadSources(['truncated.ttl.gz', 'demo/rolling-stock.ttl'], { cwd: root });
+    expect(result.sources.map((source) => source.file)).toEqual(['demo/rolling-stock.ttl']);
+    expect(result.errors).toHaveLength(1);
+    expect(result.errors[0].file).toBe('truncated.ttl.gz');
+    expect(result.errors[0].message).toContain('cannot be decompressed');
+    expect(result.errors[0].hint).toContain('gzip');
+  });
+
+  it('still returns a good file in full beside a broken one', async () => {
+    const result = await loadSources(['broken.ttl', 'demo/rolling-stock.ttl'], { cwd: root });
+    expect(result.errors).toEqual([]);
+    const [broken, good] = result.sources;
+    expect(broken.statements).toHaveLength(1);
+    expect(broken.errors).toHaveLength(1);
+    expect(broken.errors[0]).toMatchObject({ file: 'broken.ttl', line: 4 });
+    expect(good.errors).toEqual([]);
+    expect(good.statements).toHaveLength(2);
+  });
+
+  it('reports a missing path with line 0, column 0 and a hint', async () => {
+    const result = await loadSources(['no-such-file.ttl'], { cwd: root });
+    expect(result.sources).toEqual([]);
+    expect(result.errors).toEqual([
+      expect.objectContaining({ file: 'no-such-file.ttl', line: 0, column: 0, hint: expect.stringContaining('folder') }),
+    ]);
+    expect(result.errors[0].message).toContain('does not exist');
+  });
+
+  it('sniffs a named file with an unknown extension, and reports one whose content is no RDF', async () => {
+    const result = await loadSources(['export.data', 'notes.txt'], { cwd: root });
+    expect(result.sources.map((source) => [source.file, source.format])).toEqual([['export.data', 'turtle']]);
+    expect(result.errors).toHaveLength(1);
+    expect(result.errors[0].file).toBe('notes.txt');
+    expect(result.errors[0].hint).toContain('.ttl, .trig, .nt, .nq');
+  });
+
+  it('drops a UTF-8 byte order mark, so the first subject is at column 1', async () => {
+    const result = await loadSources(['with-bom.ttl'], { cwd: root });
+    expect(result.sources[0].statements[0].position).toEqual({ file: 'with-bom.ttl', line: 1, column: 1 });
+  });
+
+  it('reports text that is not UTF-8 at the first bad byte', async () => {
+    const result = await loadSources(['latin1.ttl'], { cwd: root });
+    expect(result.sources).toEqual([]);
+    // The line is '<NV>Car> <NV>label> "Wagen' then the byte e4: counted from the two IRIs' lengths.
+    const column = `<${NV}Car> <${NV}label> "Wagen`.length + 1;
+    expect(result.errors[0]).toMatchObject({ file: 'latin1.ttl', line: 1, column });
+    expect(result.errors[0].hint).toContain('UTF-8');
+  });
+});
+
+describe('loadSources on stdin', () => {
+  it('reads - from the given stream as <stdin>, sniffing its format', async () => {
+    const stdin = Readable.from([Buffer.from(INFRASTRUCTURE.slice(0, 10)), Buffer.from(INFRASTRUCTURE.slice(10))]);
+    const result = await loadSources(['-'], { cwd: root, stdin });
+    expect(result.errors).toEqual([]);
+    expect(result.sources).toHaveLength(1);
+    expect(result.sources[0]).toMatchObject({ file: '<stdin>', format: 'n-triples' });
+    expect(result.sources[0].statements[0].position).toEqual({ file: '<stdin>', line: 1, column: 1 });
+  });
+
+  it('decompresses gzip on stdin and resolves relative IRIs against file:///dev/stdin', async () => {
+    const stdin = Readable.from([gzipSync('@prefix nv: <https://data.northvale-rail.example/def/> .\n<Car> a nv:Wagon .\n')]);
+    const result = await loadSources(['-'], { stdin });
+    expect(result.sources[0].format).toBe('turtle');
+    expect(result.sources[0].statements[0].subject).toBe('file:///dev/Car');
+  });
+});
