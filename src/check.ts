@@ -4,12 +4,13 @@ import { findConfigFile, loadConfig, emptyConfig, mergeCommandLine, checkRuleIds
 import type { IsapartConfig } from './config/config.js';
 import type { Finding, Level, RuleLevel } from './engine/finding.js';
 import type { RuleDefinition } from './engine/rule.js';
-import { createRegistry, loadBuiltinRules, loadRuleDir } from './engine/rule-file.js';
+import { createRegistry, duplicateRuleErrors } from './engine/registry.js';
+import { loadBuiltinRules, loadRuleDir } from './engine/rule-file.js';
 import { runRules } from './engine/run.js';
 import { applySuppressions, UNUSED_ALLOW_RULE } from './engine/suppress.js';
 import { buildHierarchyGraph } from './graph/build.js';
 import type { HierarchyGraph } from './graph/hierarchy-graph.js';
-import type { InputError } from './load/statement.js';
+import type { InputError, LoadedSource } from './load/statement.js';
 import { loadSources } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { buildRoleMap } from './roles/role-map.js';
@@ -88,6 +89,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     ruleFailures: failures,
     rules: [...rulesInUse, { rule: UNUSED_ALLOW_RULE, level: unusedLevel }],
     configFile: config.file,
+    prefixes: declaredPrefixes(loaded.sources),
     stats: graph.stats,
     color: options.color ?? false,
     startTime,
@@ -95,6 +97,17 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     commandLine: options.commandLine ?? `isapart check ${options.paths.join(' ')}`,
   };
   return { findings, context, graph };
+}
+
+/** The prefixes declared across the sources; the first declaration of a prefix name wins. */
+function declaredPrefixes(sources: LoadedSource[]): Record<string, string> {
+  const prefixes: Record<string, string> = {};
+  for (const source of sources) {
+    for (const [name, namespace] of Object.entries(source.prefixes)) {
+      if (!(name in prefixes)) prefixes[name] = namespace;
+    }
+  }
+  return prefixes;
 }
 
 /** Finds and reads the config, then applies the command-line overrides. */
@@ -143,9 +156,12 @@ function readRules(config: IsapartConfig): { rules: RuleDefinition[]; errors: In
     all.push(...read.rules);
     errors.push(...read.errors);
   }
-  const registry = createRegistry(all);
-  errors.push(...registry.errors);
-  const rules = [...registry.rules.values()];
+  // A repeated id is reported, and the first definition (built-in before rule-dirs) is kept.
+  const duplicates = duplicateRuleErrors(all);
+  errors.push(...duplicates);
+  const seen = new Set<string>();
+  const unique = all.filter((rule) => !seen.has(rule.id) && Boolean(seen.add(rule.id)));
+  const rules = [...createRegistry(unique).values()];
   errors.push(...checkRuleIds(config, [...rules.map((rule) => rule.id), UNUSED_ALLOW_RULE.id]));
   return { rules, errors };
 }

@@ -25,6 +25,8 @@ export interface ReportContext {
   /** Every known rule with its effective level (off ones included). */
   rules: RuleInUse[];
   configFile?: string;
+  /** Prefixes declared in the sources (first declaration of a name wins), for compact statements. */
+  prefixes?: Record<string, string>;
   stats?: GraphStats;
   /** Colour for the text format. */
   color: boolean;

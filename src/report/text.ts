@@ -8,10 +8,8 @@ import { paintForLevel } from './level-paint.js';
 import { relativePath } from './paths.js';
 import { createTermWriter, type TermWriter } from './statement-text.js';
 
-/** The report context, plus prefixes (prefix → namespace IRI) for writing IRIs as prefixed names. */
-export interface TextReportContext extends ReportContext {
-  prefixes?: Record<string, string>;
-}
+/** The report context; its prefixes (prefix → namespace IRI) write IRIs as prefixed names. */
+export type TextReportContext = ReportContext;
 
 const LEVEL_WIDTH = 'warning'.length;
 const NO_LOCATION = '(no location)';

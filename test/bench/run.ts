@@ -22,13 +22,8 @@ function median(values: number[]): number {
 function timeBareParse(file: string): { ms: number; quads: number } {
   const start = performance.now();
   const text = readFileSync(file, 'utf8');
-  let quads = 0;
-  new Parser({ format: 'N-Triples' }).parse(text, {
-    onQuad: (error: Error | null, quad: unknown) => {
-      if (error) throw error;
-      if (quad) quads += 1;
-    },
-  } as never);
+  // Without callbacks n3 parses synchronously and returns the quads.
+  const quads = new Parser({ format: 'N-Triples' }).parse(text).length;
   return { ms: performance.now() - start, quads };
 }
 
