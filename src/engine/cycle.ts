@@ -1,0 +1,118 @@
+// The `cycle` entry: strongly connected components of a path's relation, each with a shortest closed walk.
+import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
+import { shortestClosedWalk } from '../graph/paths.js';
+import { cyclicComponents } from '../graph/scc.js';
+import { FORWARD, singleSteps, type RoleStep } from './automaton.js';
+import type { PathExpression } from './path.js';
+import { PathSearch, stepSuccessors, type SearchArena, type WalkedEdge } from './path-search.js';
+
+/** One cyclic component: members ordered along the closed walk, and the walk's edges (the evidence). */
+export interface CycleComponent {
+  /** The walk's nodes from the member whose term sorts first, then any other members by term. */
+  members: number[];
+  walk: WalkedEdge[];
+}
+
+/**
+ * The cyclic components of a path's relation, found once and ordered on demand. For `X+` the
+ * relation's components are those of X; when X is a union of single steps the graph's adjacency is
+ * used directly, otherwise X is evaluated one step per node.
+ */
+export class CycleSource {
+  private components: number[][] | undefined;
+  /** Per node: 1 + the index of its cyclic component, or 0. */
+  private componentOf: Int32Array | undefined;
+  private readonly ordered = new Map<number, CycleComponent>();
+  private readonly steps: RoleStep[] | undefined;
+  private readonly stepSearch: PathSearch | undefined;
+
+  constructor(
+    private readonly graph: HierarchyGraph,
+    path: PathExpression,
+    arena: SearchArena,
+  ) {
+    const base = path.type === 'modified' && path.modifier === '+' ? path.path : path;
+    this.steps = singleSteps(base);
+    this.stepSearch = this.steps === undefined ? new PathSearch(graph, base, arena) : undefined;
+  }
+
+  /** How many cyclic components there are. */
+  count(): number {
+    return this.memberSets().length;
+  }
+
+  /** The component at an index, with its members ordered and its closed walk. */
+  component(index: number): CycleComponent {
+    let found = this.ordered.get(index);
+    if (found === undefined) {
+      found = this.order(index);
+      this.ordered.set(index, found);
+    }
+    return found;
+  }
+
+  private successors(): (id: number) => ArrayLike<number> {
+    if (this.steps !== undefined) return stepSuccessors(this.graph, this.steps);
+    const search = this.stepSearch as PathSearch;
+    return (id) => search.from(id);
+  }
+
+  private memberSets(): number[][] {
+    if (this.components === undefined) {
+      const components = cyclicComponents(this.graph.nodeCount, this.successors());
+      const componentOf = new Int32Array(this.graph.nodeCount);
+      components.forEach((members, index) => {
+        for (const member of members) componentOf[member] = index + 1;
+      });
+      this.components = components;
+      this.componentOf = componentOf;
+    }
+    return this.components;
+  }
+
+  private order(index: number): CycleComponent {
+    const graph = this.graph;
+    const members = this.memberSets()[index];
+    const componentOf = this.componentOf as Int32Array;
+    let first = members[0];
+    let firstTerm = graph.term(first);
+    for (const member of members) {
+      const term = graph.term(member);
+      if (term < firstTerm) {
+        first = member;
+        firstTerm = term;
+      }
+    }
+    const walkNodes = shortestClosedWalk(first, this.successors(), (id) => componentOf[id] === index + 1);
+    if (walkNodes === undefined) throw new Error(`no closed walk through ${firstTerm} in its own component`);
+    let rest: number[] = [];
+    // A walk that leaves members out (two loops through one node) lists the others after it, by term.
+    if (walkNodes.length - 1 < members.length) {
+      const onWalk = new Set(walkNodes);
+      rest = members.filter((member) => !onWalk.has(member)).sort((left, right) => compareTerms(graph, left, right));
+    }
+    const walk: WalkedEdge[] = [];
+    for (let index = 1; index < walkNodes.length; index++) walk.push(...this.hop(walkNodes[index - 1], walkNodes[index]));
+    return { members: [...walkNodes.slice(0, -1), ...rest], walk };
+  }
+
+  /** The edges of one step of the relation from a node to the next one on the walk. */
+  private hop(from: number, to: number): WalkedEdge[] {
+    if (this.steps !== undefined) {
+      for (const { role, direction } of this.steps) {
+        if (direction === FORWARD && this.graph.hasEdge(role, from, to)) return [{ role, from, to }];
+        if (direction !== FORWARD && this.graph.hasEdge(role, to, from)) return [{ role, from: to, to: from }];
+      }
+      throw new Error(`no edge from ${this.graph.term(from)} to ${this.graph.term(to)} on a walk that uses it`);
+    }
+    const edges = (this.stepSearch as PathSearch).witness(from, to);
+    if (edges === undefined) throw new Error(`no walk from ${this.graph.term(from)} to ${this.graph.term(to)} on a cycle that uses it`);
+    return edges;
+  }
+}
+
+function compareTerms(graph: HierarchyGraph, left: number, right: number): number {
+  const a = graph.term(left);
+  const b = graph.term(right);
+  return a < b ? -1 : a > b ? 1 : 0;
+}

@@ -1,0 +1,332 @@
+// Breadth-first evaluation of a compiled path over (node, state) pairs, with scratch arrays reused between calls.
+import { cyclicComponents, stronglyConnected } from '../graph/scc.js';
+import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
+import { ROLES, type Role } from '../roles/role.js';
+import { BACKWARD, FORWARD, compileAutomaton, singleSteps, type PathAutomaton, type RoleStep } from './automaton.js';
+import { invertPath, type PathExpression } from './path.js';
+
+/** One edge walked by a path, in the role's stored direction (so `graph.edgeStatements` finds it). */
+export interface WalkedEdge {
+  role: Role;
+  from: number;
+  to: number;
+}
+
+const NO_PARENT = -1;
+const MAX_GENERATION = 0xffffffff;
+/** How many end nodes one search may keep memoised before its memo is dropped and refilled. */
+const MEMO_BUDGET = 1 << 20;
+
+/**
+ * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
+ * node, stamped with a generation number so nothing is cleared between searches; parents and the
+ * queue for witnesses. Searches never interleave (each call finishes before the next starts).
+ */
+export class SearchArena {
+  private pairMarks = new Uint32Array(0);
+  private pairGeneration = 0;
+  private nodeMarks: Uint32Array;
+  private nodeGeneration = 0;
+  queue = new Int32Array(1024);
+  parents = new Int32Array(0);
+  parentMoves = new Int32Array(0);
+
+  constructor(readonly nodeCount: number) {
+    this.nodeMarks = new Uint32Array(nodeCount);
+  }
+
+  /** Starts a search over `pairCount` pairs: every pair and node counts as unvisited again. */
+  begin(pairCount: number, withParents: boolean): void {
+    if (this.pairMarks.length < pairCount) {
+      this.pairMarks = new Uint32Array(pairCount);
+      this.pairGeneration = 0;
+    }
+    if (withParents && this.parents.length < pairCount) {
+      this.parents = new Int32Array(pairCount);
+      this.parentMoves = new Int32Array(pairCount);
+    }
+    if (this.pairGeneration === MAX_GENERATION) {
+      this.pairMarks.fill(0);
+      this.pairGeneration = 0;
+    }
+    if (this.nodeGeneration === MAX_GENERATION) {
+      this.nodeMarks.fill(0);
+      this.nodeGeneration = 0;
+    }
+    this.pairGeneration++;
+    this.nodeGeneration++;
+  }
+
+  /** Marks a pair visited; false when it already was. */
+  visitPair(pair: number): boolean {
+    if (this.pairMarks[pair] === this.pairGeneration) return false;
+    this.pairMarks[pair] = this.pairGeneration;
+    return true;
+  }
+
+  /** Marks a node reached; false when it already was. */
+  reachNode(node: number): boolean {
+    if (this.nodeMarks[node] === this.nodeGeneration) return false;
+    this.nodeMarks[node] = this.nodeGeneration;
+    return true;
+  }
+
+  /** Puts a pair at a queue position, growing the queue when needed. */
+  enqueue(position: number, pair: number): void {
+    if (position >= this.queue.length) {
+      const grown = new Int32Array(Math.max(this.queue.length * 2, position + 1));
+      grown.set(this.queue);
+      this.queue = grown;
+    }
+    this.queue[position] = pair;
+  }
+}
+
+/** What a search does with each node it newly reaches in an accepting state; true stops the search. */
+type ReachAction = (node: number, pair: number) => boolean;
+
+/**
+ * One path over one graph: `from(start)` the end nodes, `to(end)` the start nodes, `holds`,
+ * `reachesAny` and `witness` (a shortest walk). Forward results are memoised per start node within
+ * a bound; the full transitive closure is never materialised.
+ */
+export class PathSearch {
+  readonly forward: PathAutomaton;
+  private backwardSearch: PathSearch | undefined;
+  private readonly memo = new Map<number, Int32Array>();
+  private memoSize = 0;
+  private askedOnce: Uint8Array | undefined;
+  private cycleMembers: Uint8Array | undefined;
+  private componentRank: Int32Array | undefined;
+  /** The single steps of `X` when the path is `X+` with X a union of single steps (cycle shortcut). */
+  private readonly plusSteps: RoleStep[] | undefined;
+  /** The role and direction when the path is one step (`part-of`, `^part-of`): read straight from the adjacency. */
+  private readonly onlyStep: RoleStep | undefined;
+
+  constructor(
+    private readonly graph: HierarchyGraph,
+    readonly path: PathExpression,
+    private readonly arena: SearchArena,
+    automaton?: PathAutomaton,
+  ) {
+    this.forward = automaton ?? compileAutomaton(path);
+    this.plusSteps = path.type === 'modified' && path.modifier === '+' ? singleSteps(path.path) : undefined;
+    const steps = singleSteps(path);
+    this.onlyStep = steps?.length === 1 ? steps[0] : undefined;
+  }
+
+  /** The end nodes of the path from a start node, ascending (may be shared with the memo: never modify it). */
+  from(start: number): Int32Array {
+    if (this.onlyStep !== undefined) {
+      const { role, direction } = this.onlyStep;
+      return direction === FORWARD ? this.graph.successors(role, start) : this.graph.predecessors(role, start);
+    }
+    const memoised = this.memo.get(start);
+    if (memoised !== undefined) return memoised;
+    const reached: number[] = [];
+    this.run(start, false, (node) => {
+      reached.push(node);
+      return false;
+    });
+    const result = Int32Array.from(reached).sort();
+    // Only a start asked about more than once is memoised, so one pass over every node keeps nothing.
+    if (this.markAsked(start)) this.remember(start, result);
+    return result;
+  }
+
+  /** The start nodes from which the path reaches an end node, ascending. */
+  to(end: number): Int32Array {
+    return this.reverse().from(end);
+  }
+
+  /** The search of the inverse path (walks from end nodes back to start nodes). */
+  reverse(): PathSearch {
+    this.backwardSearch ??= new PathSearch(this.graph, invertPath(this.path), this.arena, compileAutomaton(this.path, true));
+    return this.backwardSearch;
+  }
+
+  /** Whether the path leads from start to end; stops as soon as end is reached. */
+  holds(start: number, end: number): boolean {
+    if (this.onlyStep !== undefined) return this.stepEdge(start, end) !== undefined;
+    if (start === end && this.plusSteps !== undefined) return this.onCycle(start);
+    const memoised = this.memo.get(start);
+    if (memoised !== undefined) return binarySearch(memoised, end);
+    // No full closure here: an early exit, with ranks pruning what cannot reach end, stays cheap on deep chains.
+    return this.run(start, false, (node) => node === end, end);
+  }
+
+  /** Whether the path leads from start to any node at all. */
+  reachesAny(start: number): boolean {
+    if (this.onlyStep !== undefined) return this.from(start).length > 0;
+    const memoised = this.memo.get(start);
+    if (memoised !== undefined) return memoised.length > 0;
+    return this.run(start, false, () => true);
+  }
+
+  /** A shortest walk of the path from start to end as edges (empty for a zero-length match), or undefined. */
+  witness(start: number, end: number): WalkedEdge[] | undefined {
+    if (this.onlyStep !== undefined) {
+      const edge = this.stepEdge(start, end);
+      return edge === undefined ? undefined : [edge];
+    }
+    const automaton = this.forward;
+    const states = automaton.stateCount;
+    let found = NO_PARENT;
+    this.run(
+      start,
+      true,
+      (node, pair) => {
+        if (node !== end) return false;
+        found = pair;
+        return true;
+      },
+      end,
+    );
+    if (found === NO_PARENT) return undefined;
+    const edges: WalkedEdge[] = [];
+    const { parents, parentMoves } = this.arena;
+    for (let pair = found; parents[pair] !== NO_PARENT; pair = parents[pair]) {
+      const move = parentMoves[pair];
+      const node = Math.floor(pair / states);
+      const previous = Math.floor(parents[pair] / states);
+      const role = ROLES[automaton.transitionRole[move]];
+      const forward = automaton.transitionDirection[move] === FORWARD;
+      edges.push(forward ? { role, from: previous, to: node } : { role, from: node, to: previous });
+    }
+    return edges.reverse();
+  }
+
+  /** The stored edge behind a one-step path from start to end, if there is one. */
+  private stepEdge(start: number, end: number): WalkedEdge | undefined {
+    const { role, direction } = this.onlyStep as RoleStep;
+    if (direction === FORWARD) return this.graph.hasEdge(role, start, end) ? { role, from: start, to: end } : undefined;
+    return this.graph.hasEdge(role, end, start) ? { role, from: end, to: start } : undefined;
+  }
+
+  /** Whether a node reaches itself through `X+`, read from the cyclic components of X's edges. */
+  private onCycle(node: number): boolean {
+    if (this.cycleMembers === undefined) {
+      const members = new Uint8Array(this.graph.nodeCount);
+      const successors = stepSuccessors(this.graph, this.plusSteps as RoleStep[]);
+      for (const component of cyclicComponents(this.graph.nodeCount, successors)) {
+        for (const member of component) members[member] = 1;
+      }
+      this.cycleMembers = members;
+    }
+    return this.cycleMembers[node] === 1;
+  }
+
+  /**
+   * The strongly connected component of every node over the steps the path uses, in Tarjan's order
+   * (reverse topological): a walk from u can reach v only when rank[u] >= rank[v].
+   */
+  private ranks(): Int32Array {
+    if (this.componentRank === undefined) {
+      const automaton = this.forward;
+      const steps: RoleStep[] = [];
+      for (let move = 0; move < automaton.transitionRole.length; move++) {
+        const role = ROLES[automaton.transitionRole[move]];
+        const direction = automaton.transitionDirection[move];
+        if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
+      }
+      this.componentRank = stronglyConnected(this.graph.nodeCount, stepSuccessors(this.graph, steps)).component;
+    }
+    return this.componentRank;
+  }
+
+  /**
+   * Breadth-first search from (start, 0); calls `action` per newly reached accepting node until it
+   * returns true. With a known `end`, nodes that cannot reach it (by component rank) are not entered.
+   */
+  private run(start: number, withParents: boolean, action: ReachAction, end = -1): boolean {
+    const automaton = this.forward;
+    const states = automaton.stateCount;
+    const arena = this.arena;
+    const graph = this.graph;
+    const rank = end >= 0 && start !== end ? this.ranks() : undefined;
+    const endRank = rank === undefined ? 0 : rank[end];
+    if (rank !== undefined && rank[start] < endRank) return false;
+    arena.begin(this.graph.nodeCount * states, withParents);
+    const first = start * states;
+    arena.visitPair(first);
+    if (withParents) arena.parents[first] = NO_PARENT;
+    arena.enqueue(0, first);
+    if (automaton.accepting[0] === 1 && arena.reachNode(start) && action(start, first)) return true;
+    let head = 0;
+    let tail = 1;
+    while (head < tail) {
+      const pair = arena.queue[head++];
+      const node = Math.floor(pair / states);
+      const state = pair - node * states;
+      for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
+        const role = ROLES[automaton.transitionRole[move]];
+        const target = automaton.transitionTarget[move];
+        const neighbours =
+          automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
+        for (let index = 0; index < neighbours.length; index++) {
+          const neighbour = neighbours[index];
+          if (rank !== undefined && rank[neighbour] < endRank) continue;
+          const next = neighbour * states + target;
+          if (!arena.visitPair(next)) continue;
+          if (withParents) {
+            arena.parents[next] = pair;
+            arena.parentMoves[next] = move;
+          }
+          arena.enqueue(tail++, next);
+          if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) return true;
+        }
+      }
+    }
+    return false;
+  }
+
+  /** Records that a start was asked about; true when it had been before. */
+  private markAsked(start: number): boolean {
+    const asked = (this.askedOnce ??= new Uint8Array(this.graph.nodeCount));
+    const before = asked[start] === 1;
+    asked[start] = 1;
+    return before;
+  }
+
+  private remember(start: number, result: Int32Array): void {
+    if (this.memoSize + result.length > MEMO_BUDGET) {
+      this.memo.clear();
+      this.memoSize = 0;
+    }
+    this.memo.set(start, result);
+    this.memoSize += result.length + 1;
+  }
+}
+
+/** The successor function of a union of single steps, straight from the graph's adjacency. */
+export function stepSuccessors(graph: HierarchyGraph, steps: RoleStep[]): (id: number) => Int32Array {
+  if (steps.length === 1) {
+    const { role, direction } = steps[0];
+    return direction === FORWARD ? (id) => graph.successors(role, id) : (id) => graph.predecessors(role, id);
+  }
+  return (id) => {
+    const lists = steps.map(({ role, direction }) =>
+      direction === FORWARD ? graph.successors(role, id) : graph.predecessors(role, id),
+    );
+    const merged = new Int32Array(lists.reduce((sum, list) => sum + list.length, 0));
+    let offset = 0;
+    for (const list of lists) {
+      merged.set(list, offset);
+      offset += list.length;
+    }
+    return merged;
+  };
+}
+
+function binarySearch(sorted: Int32Array, wanted: number): boolean {
+  let low = 0;
+  let high = sorted.length - 1;
+  while (low <= high) {
+    const middle = (low + high) >>> 1;
+    const value = sorted[middle];
+    if (value === wanted) return true;
+    if (value < wanted) low = middle + 1;
+    else high = middle - 1;
+  }
+  return false;
+}
