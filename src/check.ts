@@ -73,7 +73,9 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   const comments = loaded.sources.flatMap((source) => source.allowComments);
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
-  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unused.map((f) => ({ ...f, level: unusedLevel }))];
+  // An allow for a rule that is switched off has nothing to suppress, and is not worth a note either.
+  const unusedShown = unused.filter((finding) => (config.rules[finding.focus] ?? '') !== 'off');
+  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unusedShown.map((f) => ({ ...f, level: unusedLevel }))];
 
   const context: ReportContext = {
     toolName: 'isapart',

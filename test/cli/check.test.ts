@@ -119,6 +119,17 @@ describe('isapart check', () => {
   });
 });
 
+describe('the shipped demo', () => {
+  it('lints with exit 0 under --fail-on never and shows a finding of every built-in rule', async () => {
+    const root = path.resolve(__dirname, '../..');
+    const result = await run(root, ['check', 'fixtures/demo', '--fail-on', 'never']);
+    expect(result.code).toBe(0);
+    const builtIn = readdirSync(path.join(root, 'rules')).filter((name) => name.endsWith('.yaml')).map((name) => name.replace(/\.yaml$/, ''));
+    expect(builtIn).toHaveLength(9);
+    for (const ruleId of builtIn) expect(result.out).toContain(`  ${ruleId}  `);
+  });
+});
+
 describe('the isapart binary', () => {
   it('runs as a process with the exit code of the run', () => {
     const root = path.resolve(__dirname, '../..');
