@@ -16,6 +16,8 @@ const NO_PARENT = -1;
 const MAX_GENERATION = 0xffffffff;
 /** How many end nodes one search may keep memoised before its memo is dropped and refilled. */
 const MEMO_BUDGET = 1 << 20;
+/** How often `holds` must be asked about one end before its reachers are computed at once. */
+const REPEATED_END_ASKS = 4;
 
 /**
  * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
@@ -96,6 +98,9 @@ export class PathSearch {
   private readonly memo = new Map<number, Int32Array>();
   private memoSize = 0;
   private askedOnce: Uint8Array | undefined;
+  /** Per end node asked about more than once: the start nodes that reach it, ascending. */
+  private readonly reachersMemo = new Map<number, Int32Array>();
+  private askedAsEnd: Uint8Array | undefined;
   private cycleMembers: Uint8Array | undefined;
   private componentRank: Int32Array | undefined;
   /** The single steps of `X` when the path is `X+` with X a union of single steps (cycle shortcut). */
@@ -151,6 +156,19 @@ export class PathSearch {
     if (start === end && this.plusSteps !== undefined) return this.onCycle(start);
     const memoised = this.memo.get(start);
     if (memoised !== undefined) return binarySearch(memoised, end);
+    if (start !== end) {
+      const rank = this.ranks();
+      if (rank[start] < rank[end]) return false;
+    }
+    const reachers = this.reachersMemo.get(end);
+    if (reachers !== undefined) return binarySearch(reachers, start);
+    // An end asked about repeatedly (a rule's fixed class checked against many starts): one backward
+    // search answers every later start, where repeated forward searches would cost depth each.
+    if (this.countAskedAsEnd(end) >= REPEATED_END_ASKS) {
+      const found = this.reverse().from(end);
+      this.rememberReachers(end, found);
+      return binarySearch(found, start);
+    }
     // No full closure here: an early exit, with ranks pruning what cannot reach end, stays cheap on deep chains.
     return this.run(start, false, (node) => node === end, end);
   }
@@ -288,9 +306,27 @@ export class PathSearch {
     return before;
   }
 
+  /** Counts (up to 255) how often an end was asked about, this time included. */
+  private countAskedAsEnd(end: number): number {
+    const asked = (this.askedAsEnd ??= new Uint8Array(this.graph.nodeCount));
+    if (asked[end] < 255) asked[end] += 1;
+    return asked[end];
+  }
+
+  private rememberReachers(end: number, result: Int32Array): void {
+    if (this.memoSize + result.length > MEMO_BUDGET) {
+      this.memo.clear();
+      this.reachersMemo.clear();
+      this.memoSize = 0;
+    }
+    this.reachersMemo.set(end, result);
+    this.memoSize += result.length + 1;
+  }
+
   private remember(start: number, result: Int32Array): void {
     if (this.memoSize + result.length > MEMO_BUDGET) {
       this.memo.clear();
+      this.reachersMemo.clear();
       this.memoSize = 0;
     }
     this.memo.set(start, result);

@@ -75,4 +75,38 @@ describe('scale', () => {
     expect(findings).toHaveLength(SIZE - 2);
     expect(findings[0].nodes).toEqual([`${NV}c0000000`, `${NV}c0000002`]);
   });
+
+  it('finds one disjoint-overlap at the top of a 200,000-long chain whose every class falls under both classes', () => {
+    // Every class of the chain is under both disjoint classes; only the most general one is the fact.
+    // Checking each class against a fixed class by a fresh upward search would be quadratic here.
+    const SIZE = 200_000;
+    const chainEdges = SIZE - 1 + Math.floor((SIZE - 2) / 2);
+    const from = new Int32Array(chainEdges + 2);
+    const to = new Int32Array(chainEdges + 2);
+    let next = 0;
+    for (let index = 0; index + 1 < SIZE; index++) {
+      from[next] = index;
+      to[next++] = index + 1;
+      if (index % 2 === 0 && index + 2 < SIZE) {
+        from[next] = index;
+        to[next++] = index + 2;
+      }
+    }
+    const [left, right] = [SIZE, SIZE + 1];
+    from[next] = SIZE - 1;
+    to[next++] = left;
+    from[next] = SIZE - 1;
+    to[next++] = right;
+    const graph = fixtureGraph({
+      nodeCount: SIZE + 2,
+      term: (id) => (id === left ? `${NV}Left` : id === right ? `${NV}Right` : `${NV}c${String(id).padStart(7, '0')}`),
+      edges: {
+        'subclass-of': { from: from.slice(0, next), to: to.slice(0, next) },
+        'disjoint-with': { from: Int32Array.of(left), to: Int32Array.of(right) },
+      },
+    });
+    const { findings, failures } = runRules(graph, [{ rule: builtin('disjoint-overlap'), level: 'error' }]);
+    expect(failures).toEqual([]);
+    expect(findings.map((finding) => finding.nodes)).toEqual([[`${NV}c0199999`, `${NV}Left`, `${NV}Right`]]);
+  });
 });
