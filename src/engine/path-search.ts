@@ -166,7 +166,7 @@ export class PathSearch {
     // search answers every later start, where repeated forward searches would cost depth each.
     if (this.countAskedAsEnd(end) >= REPEATED_END_ASKS) {
       const found = this.reverse().from(end);
-      this.rememberReachers(end, found);
+      this.remember(end, found, this.reachersMemo);
       return binarySearch(found, start);
     }
     // No full closure here: an early exit, with ranks pruning what cannot reach end, stays cheap on deep chains.
@@ -313,25 +313,17 @@ export class PathSearch {
     return asked[end];
   }
 
-  private rememberReachers(end: number, result: Int32Array): void {
+  /** Keeps a result in one of the two memos within the shared budget (both are dropped when it is spent). */
+  private remember(start: number, result: Int32Array, memo: Map<number, Int32Array> = this.memo): void {
     if (this.memoSize + result.length > MEMO_BUDGET) {
       this.memo.clear();
       this.reachersMemo.clear();
       this.memoSize = 0;
     }
-    this.reachersMemo.set(end, result);
+    memo.set(start, result);
     this.memoSize += result.length + 1;
   }
 
-  private remember(start: number, result: Int32Array): void {
-    if (this.memoSize + result.length > MEMO_BUDGET) {
-      this.memo.clear();
-      this.reachersMemo.clear();
-      this.memoSize = 0;
-    }
-    this.memo.set(start, result);
-    this.memoSize += result.length + 1;
-  }
 }
 
 /** The successor function of a union of single steps, straight from the graph's adjacency. */

@@ -1,5 +1,6 @@
 // Counting and ordering findings the same way in every report.
 import type { Finding, Level } from '../engine/finding.js';
+import { compareFindings } from '../engine/run.js';
 import type { Position } from '../load/statement.js';
 import type { ReportContext } from './context.js';
 
@@ -46,18 +47,6 @@ export function countFindings(findings: Finding[], context: ReportContext): Find
 /** Findings in report order: by file, line, column of their primary position, then rule id and fingerprint. */
 export function sortFindings(findings: Finding[]): Finding[] {
   return [...findings].sort(compareFindings);
-}
-
-function compareFindings(a: Finding, b: Finding): number {
-  const positionA = primaryPosition(a);
-  const positionB = primaryPosition(b);
-  return (
-    compareText(positionA?.file ?? '', positionB?.file ?? '') ||
-    (positionA?.line ?? 0) - (positionB?.line ?? 0) ||
-    (positionA?.column ?? 0) - (positionB?.column ?? 0) ||
-    compareText(a.ruleId, b.ruleId) ||
-    compareText(a.fingerprint, b.fingerprint)
-  );
 }
 
 /** Compares strings by UTF-16 code units, the same on every machine (no locale). */

@@ -31,8 +31,8 @@ export function toText(findings: Finding[], context: TextReportContext): string 
     cwd: context.cwd,
   };
   const sections = [
-    inputErrorsSection(context.inputErrors, writer),
-    inputWarningsSection(context.inputWarnings ?? [], writer),
+    inputProblemsSection(context.inputErrors, 'error', writer),
+    inputProblemsSection(context.inputWarnings ?? [], 'warning', writer),
     ruleFailuresSection(context, writer),
     ...fileSections(findings.filter((finding) => !finding.suppression), writer),
     allowedSection(findings.filter((finding) => finding.suppression), writer),
@@ -41,22 +41,13 @@ export function toText(findings: Finding[], context: TextReportContext): string 
   return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
 }
 
-function inputErrorsSection(errors: InputError[], writer: TextWriter): string[] {
-  if (errors.length === 0) return [];
-  const lines = [writer.paint.bold(`input errors (${errors.length})`)];
-  for (const error of errors) {
-    lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(error, writer.cwd))}  ${levelWord('error', writer.paint)}  ${error.message}`);
-    if (error.hint) lines.push(`${DETAIL_INDENT}hint: ${error.hint}`);
-  }
-  return lines;
-}
-
-function inputWarningsSection(warnings: InputError[], writer: TextWriter): string[] {
-  if (warnings.length === 0) return [];
-  const lines = [writer.paint.bold(`input warnings (${warnings.length})`)];
-  for (const warning of warnings) {
-    lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(warning, writer.cwd))}  ${levelWord('warning', writer.paint)}  ${warning.message}`);
-    if (warning.hint) lines.push(`${DETAIL_INDENT}hint: ${warning.hint}`);
+/** Input errors or input warnings, each with its position, message and hint. */
+function inputProblemsSection(problems: InputError[], level: 'error' | 'warning', writer: TextWriter): string[] {
+  if (problems.length === 0) return [];
+  const lines = [writer.paint.bold(`input ${level}s (${problems.length})`)];
+  for (const problem of problems) {
+    lines.push(`${FINDING_INDENT}${writer.paint.dim(positionText(problem, writer.cwd))}  ${levelWord(level, writer.paint)}  ${problem.message}`);
+    if (problem.hint) lines.push(`${DETAIL_INDENT}hint: ${problem.hint}`);
   }
   return lines;
 }
