@@ -53,7 +53,7 @@ export interface AllowComment {
 /** The RDF syntaxes isapart reads. */
 export type RdfFormat = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
 
-/** Everything read from one source (a file, or stdin as file '-'). */
+/** Everything read from one source (a file, or stdin as file '<stdin>'). */
 export interface LoadedSource {
   file: string;
   format: RdfFormat;

@@ -1,11 +1,11 @@
 // Paths and URIs of input files as reports show them: relative to the folder the run started in.
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { STDIN_FILE } from '../load/parse.js';
 
-/** The file name a source read from standard input has. */
-export const STDIN_FILE = '-';
+export { STDIN_FILE } from '../load/parse.js';
 
-/** A file's path relative to `cwd`, with forward slashes; stdin stays `-`, a path on another root stays absolute. */
+/** A file's path relative to `cwd`, with forward slashes; stdin stays as the loader names it, a path on another root stays absolute. */
 export function relativePath(file: string, cwd: string): string {
   if (file === STDIN_FILE) return file;
   const absolute = path.resolve(cwd, file);

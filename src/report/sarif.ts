@@ -72,7 +72,7 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
         invocations: [
           {
             // SARIF 2.1.0: an error-level tool execution notification means the run did not succeed.
-            executionSuccessful: notifications.length === 0,
+            executionSuccessful: context.inputErrors.length === 0 && context.ruleFailures.length === 0,
             commandLine: context.commandLine,
             startTimeUtc: context.startTime.toISOString(),
             endTimeUtc: context.endTime.toISOString(),
@@ -113,7 +113,8 @@ function ruleDescriptor(ruleInUse: RuleInUse): SarifObject {
 function result(finding: Finding, writer: SarifWriter): SarifObject {
   const position = primaryPosition(finding);
   const primary: SarifObject = position ? { physicalLocation: physicalLocation(position, writer) } : {};
-  if (finding.focus !== '') primary.logicalLocations = [{ fullyQualifiedName: finding.focus }];
+  // A finding with no statement evidence (an unused allow) is about a comment, not a node.
+  if (finding.focus !== '' && finding.evidence.length > 0) primary.logicalLocations = [{ fullyQualifiedName: finding.focus }];
   const index = writer.ruleIndex.get(finding.ruleId);
   const written: SarifObject = {
     ruleId: finding.ruleId,
@@ -122,9 +123,10 @@ function result(finding: Finding, writer: SarifWriter): SarifObject {
     message: { text: finding.message },
     locations: Object.keys(primary).length > 0 ? [primary] : [],
   };
-  if (finding.evidence.length > 0) {
-    written.relatedLocations = finding.evidence.map((statement, evidenceIndex) => ({
-      id: evidenceIndex,
+  // design.md: the first evidence statement is the location, the other evidence the related locations.
+  if (finding.evidence.length > 1) {
+    written.relatedLocations = finding.evidence.slice(1).map((statement, evidenceIndex) => ({
+      id: evidenceIndex + 1,
       physicalLocation: physicalLocation(statement.position, writer),
       message: { text: writer.terms.statement(statement) },
     }));

@@ -1,7 +1,7 @@
 // relativePath and fileUri: report paths relative to the run folder, and URIs that resolve back to the file.
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { fileUri, folderUri, relativePath } from '../../src/report/paths.js';
+import { fileUri, folderUri, relativePath, STDIN_FILE } from '../../src/report/paths.js';
 
 const CWD = '/srv/northvale';
 
@@ -10,7 +10,7 @@ describe('relativePath', () => {
     expect(relativePath('/srv/northvale/data/rolling-stock.ttl', CWD)).toBe('data/rolling-stock.ttl');
     expect(relativePath('data/rolling-stock.ttl', CWD)).toBe('data/rolling-stock.ttl');
     expect(relativePath('/srv/shared/vocab.ttl', CWD)).toBe('../shared/vocab.ttl');
-    expect(relativePath('-', CWD)).toBe('-');
+    expect(relativePath(STDIN_FILE, CWD)).toBe(STDIN_FILE);
   });
 });
 
@@ -26,6 +26,6 @@ describe('fileUri', () => {
     }
     expect(fileUri('/srv/northvale/data/signal plans/signals.nt', CWD)).toBe('data/signal%20plans/signals.nt');
     expect(fileUri('/srv/northvale/a:b.ttl', CWD)).toBe('./a:b.ttl');
-    expect(fileUri('-', CWD)).toBeUndefined();
+    expect(fileUri(STDIN_FILE, CWD)).toBeUndefined();
   });
 });

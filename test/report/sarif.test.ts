@@ -5,6 +5,7 @@ import { pathToFileURL } from 'node:url';
 import Ajv from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { FINGERPRINT_KEY, PROJECT_ROOT_BASE_ID, SARIF_SCHEMA_URI, toSarif } from '../../src/report/sarif.js';
+import { STDIN_FILE } from '../../src/report/paths.js';
 import {
   ALL_FINDINGS,
   ALLOWED_BY_CONFIG,
@@ -12,6 +13,7 @@ import {
   CWD,
   DEF,
   DEPRECATED_FINDING,
+  INPUT_WARNINGS,
   PANTOGRAPH_FINDING,
   SIGNAL_CYCLE_FINDING,
   SIGNALS,
@@ -95,7 +97,8 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
     const pantograph = resultFor(log, PANTOGRAPH_FINDING.fingerprint);
     // SARIF 2.1.0: regions are 1-based, as are isapart's positions, so they carry over unchanged.
     expect(pantograph.locations[0].physicalLocation.region).toEqual({ startLine: 12, startColumn: 1 });
-    expect(pantograph.relatedLocations[1].physicalLocation.region).toEqual({ startLine: 13, startColumn: 5 });
+    // design.md: the first evidence statement is the location; the rest are related locations.
+    expect(pantograph.relatedLocations[0].physicalLocation.region).toEqual({ startLine: 13, startColumn: 5 });
     const regions: any[] = [];
     JSON.stringify(log, (key, value) => {
       if (key === 'region') regions.push(value);
@@ -129,6 +132,10 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
     expect(clean.commandLine).toBe('isapart check data --format sarif');
     expect(clean.startTimeUtc).toBe('2025-03-04T08:15:00.000Z');
     expect(clean.endTimeUtc).toBe('2025-03-04T08:15:02.250Z');
+    // Input warnings alone are warning-level notifications: the run still succeeded.
+    const warned = JSON.parse(toSarif(ALL_FINDINGS, { ...context(), inputWarnings: INPUT_WARNINGS })).runs[0].invocations[0];
+    expect(warned.toolExecutionNotifications.map((notification: any) => notification.level)).toEqual(['warning']);
+    expect(warned.executionSuccessful).toBe(true);
   });
 
   it('writes an input error as a notification with its location and hint, and a rule failure with its rule', () => {
@@ -176,8 +183,8 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
     expect(cycle.message.text).toBe(SIGNAL_CYCLE_FINDING.message);
     expect(cycle.locations[0].logicalLocations).toEqual([{ fullyQualifiedName: `${DEF}MainSignal` }]);
     expect(cycle.properties.nodes).toEqual([`${DEF}MainSignal`, `${DEF}Signal`]);
-    expect(cycle.relatedLocations.map((location: any) => location.id)).toEqual([0, 1]);
-    expect(cycle.relatedLocations[1].message.text).toBe(
+    expect(cycle.relatedLocations.map((location: any) => location.id)).toEqual([1]);
+    expect(cycle.relatedLocations[0].message.text).toBe(
       `<${DEF}Signal> <http://www.w3.org/2000/01/rdf-schema#subClassOf> <${DEF}MainSignal> <https://data.northvale-rail.example/asset/graph/signalling>`,
     );
   });
@@ -188,6 +195,8 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
     expect(result.locations[0].physicalLocation.region).toEqual({ startLine: 31, startColumn: 40 });
     expect(result.locations[0].physicalLocation.artifactLocation).toEqual({ uri: 'data/rolling-stock.ttl', uriBaseId: PROJECT_ROOT_BASE_ID, index: 0 });
     expect(result.relatedLocations).toBeUndefined();
+    // It is about a comment, not a node: no logical location.
+    expect(result.locations[0].logicalLocations).toBeUndefined();
   });
 
   it('writes suppressions with their kind, justification and where they were stated', () => {
@@ -236,8 +245,8 @@ describe('toSarif and the SARIF 2.1.0 rules', () => {
   });
 
   it('describes standard input, which has no URI, and still points results at its artifact', () => {
-    const fromStdin = { ...PANTOGRAPH_FINDING, evidence: PANTOGRAPH_FINDING.evidence.map((value) => ({ ...value, position: { ...value.position, file: '-' } })), fix: undefined };
-    const log = JSON.parse(toSarif([fromStdin], { ...context(), sources: [{ file: '-', format: 'turtle', statements: 2 }] }));
+    const fromStdin = { ...PANTOGRAPH_FINDING, evidence: PANTOGRAPH_FINDING.evidence.map((value) => ({ ...value, position: { ...value.position, file: STDIN_FILE } })), fix: undefined };
+    const log = JSON.parse(toSarif([fromStdin], { ...context(), sources: [{ file: STDIN_FILE, format: 'turtle', statements: 2 }] }));
     expect(validate(log)).toBe(true);
     expect(log.runs[0].artifacts[0].location).toEqual({ index: 0, description: { text: 'standard input' } });
     expect(log.runs[0].results[0].locations[0].physicalLocation.artifactLocation).toEqual({ index: 0, description: { text: 'standard input' } });
