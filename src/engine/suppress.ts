@@ -84,30 +84,33 @@ function lineKey(file: string, line: number): string {
   return `${file}\n${line}`;
 }
 
+// An unused allow has no node: its focus is the rule it names, and like every fingerprint its
+// fingerprint comes from the rule id and the nodes (here the named rule and the reason), never from
+// files or lines, so moving the comment keeps it.
 function unusedComment(comment: AllowComment): Finding {
-  const text = `# isapart-allow ${comment.ruleId}: ${comment.reason}`;
+  const nodes = [comment.ruleId, comment.reason];
   return {
     ruleId: UNUSED_ALLOW_RULE.id,
     level: 'note',
     focus: comment.ruleId,
-    nodes: [comment.ruleId],
+    nodes,
     message: `the allow comment for ${comment.ruleId} suppresses nothing and should be removed`,
     evidence: [],
-    fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, [comment.file, text]),
+    fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, nodes),
     location: { file: comment.file, line: comment.line, column: comment.column },
   };
 }
 
 function unusedEntry(entry: AllowEntry): Finding {
-  const text = `allow: { rule: ${entry.rule}, focus: ${entry.focus} }`;
+  const nodes = [entry.rule, entry.focus];
   return {
     ruleId: UNUSED_ALLOW_RULE.id,
     level: 'note',
     focus: entry.rule,
-    nodes: [entry.rule, entry.focus],
+    nodes,
     message: `the allow entry for ${entry.rule} on ${entry.focus} suppresses nothing and should be removed`,
     evidence: [],
-    fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, [entry.file, text]),
+    fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, nodes),
     location: { file: entry.file, line: entry.line, column: 1 },
   };
 }

@@ -84,6 +84,10 @@ describe('applySuppressions', () => {
     const moved = applySuppressions([pantograph], [comment('assets.ttl', 31, 'kind-and-part', false)], []);
     expect(moved.unused[0].fingerprint).toBe(unused[0].fingerprint);
     expect(unused[0].fingerprint).not.toBe(unused[1].fingerprint);
+    // design.md: a fingerprint is sha-256 of rule id + nodes, never of files or lines.
+    expect(unused[0].fingerprint).toBe(fingerprintOf('unused-allow', unused[0].nodes));
+    const renamed = applySuppressions([pantograph], [comment('renamed.ttl', 30, 'kind-and-part', false)], []);
+    expect(renamed.unused[0].fingerprint).toBe(unused[0].fingerprint);
   });
 
   it('prefers the in-source comment when a comment and an entry both apply, and counts both as used', () => {
