@@ -2,6 +2,8 @@
 import path from 'node:path';
 import { findConfigFile, loadConfig, emptyConfig, mergeCommandLine, checkRuleIds } from './config/load-config.js';
 import type { IsapartConfig } from './config/config.js';
+import { suggestionHint } from './config/nearest.js';
+import { unmatchedSettingWarnings } from './config/unmatched-settings.js';
 import type { Finding, Level, RuleLevel } from './engine/finding.js';
 import type { RuleDefinition } from './engine/rule.js';
 import { createRegistry, duplicateRuleErrors } from './engine/registry.js';
@@ -10,7 +12,8 @@ import { runRules } from './engine/run.js';
 import { applySuppressions, UNUSED_ALLOW_RULE } from './engine/suppress.js';
 import { buildHierarchyGraph } from './graph/build.js';
 import type { HierarchyGraph } from './graph/hierarchy-graph.js';
-import type { InputError, LoadedSource } from './load/statement.js';
+import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
+import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { buildRoleMap } from './roles/role-map.js';
@@ -65,12 +68,23 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
+  const knownIds = new Set([...rules.map((rule) => rule.id), UNUSED_ALLOW_RULE.id]);
+  const allComments = loaded.sources.flatMap((source) => source.allowComments);
+  // A comment naming no known rule can suppress nothing: it is an error (with the nearest id), not an unused-allow note.
+  const comments = allComments.filter((comment) => knownIds.has(comment.ruleId));
+  inputErrors.push(...unknownCommentRuleErrors(allComments, [...knownIds]));
+
   const graph = buildHierarchyGraph(loaded.sources, roleMap, { prefixes: config.scope, roots: config.roots });
+  const inputWarnings = [
+    ...(graph.problems ?? []),
+    ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
+    ...nothingReadWarnings(loaded.sources),
+    ...unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] }),
+  ];
   const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
   const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
   const { findings: raw, failures } = runRules(graph, active);
 
-  const comments = loaded.sources.flatMap((source) => source.allowComments);
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
   // An allow for a rule that is switched off has nothing to suppress, and is not worth a note either.
@@ -87,7 +101,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
       statements: source.statements.length,
     })),
     inputErrors,
-    inputWarnings: [...(graph.problems ?? [])],
+    inputWarnings,
     ruleFailures: failures,
     rules: [...rulesInUse, { rule: UNUSED_ALLOW_RULE, level: unusedLevel }],
     configFile: config.file,
@@ -99,6 +113,80 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     commandLine: options.commandLine ?? `isapart check ${options.paths.join(' ')}`,
   };
   return { findings, context, graph };
+}
+
+/** How many skipped file names one warning lists before it only counts the rest. */
+const SKIPPED_NAMES_SHOWN = 5;
+
+/**
+ * One warning naming the files inside the given folders that were left out for their extension, so
+ * that nothing is dropped unseen. The config file and rule files in use are read, so not listed.
+ */
+function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; config: IsapartConfig }): InputError[] {
+  const { cwd, config } = settings;
+  const consumed = (shown: string) => {
+    const absolute = path.resolve(cwd, shown);
+    return absolute === config.file || config.ruleDirs.some((folder) => absolute.startsWith(folder + path.sep));
+  };
+  const skipped = skippedFiles.filter((shown) => !consumed(shown));
+  if (skipped.length === 0) return [];
+  const folder = commonFolder(skipped);
+  const named = skipped
+    .slice(0, SKIPPED_NAMES_SHOWN)
+    .map((shown) => path.relative(folder, shown).split(path.sep).join('/'))
+    .join(', ');
+  const rest = skipped.length > SKIPPED_NAMES_SHOWN ? ` and ${skipped.length - SKIPPED_NAMES_SHOWN} more` : '';
+  const files = skipped.length === 1 ? '1 file under it was not read, as its name does' : `${skipped.length} files under it were not read, as their names do`;
+  return [
+    {
+      file: folder,
+      line: 0,
+      column: 0,
+      message: `${files} not end in ${RDF_EXTENSIONS.join(', ')} (or those with .gz): ${named}${rest}`,
+      hint: 'name a file on the command line to read it whatever its extension (its syntax is then told from its content)',
+    },
+  ];
+}
+
+/** A warning when sources were read but none held a statement, so that an empty export does not pass unnoticed. */
+function nothingReadWarnings(sources: LoadedSource[]): InputError[] {
+  if (sources.length === 0 || sources.some((source) => source.statements.length > 0 || source.errors.length > 0)) return [];
+  const files = sources.length === 1 ? `${sources[0].file} holds` : `none of the ${sources.length} files read holds`;
+  return [
+    {
+      file: sources[0].file,
+      line: 0,
+      column: 0,
+      message: `${files} no RDF statement, so nothing was linted`,
+      hint: 'check that the export or the command feeding standard input produced data',
+    },
+  ];
+}
+
+/** The deepest folder that holds every one of the given paths (as written, not resolved). */
+function commonFolder(files: string[]): string {
+  let folder = path.dirname(files[0]);
+  const inside = (file: string) => folder === '.' || file.startsWith(folder + '/') || file.startsWith(folder + path.sep);
+  while (!files.every(inside)) {
+    const parent = path.dirname(folder);
+    if (parent === folder) break;
+    folder = parent;
+  }
+  return folder;
+}
+
+/** Errors for allow comments that name a rule id no loaded rule has, with the nearest id as a hint. */
+function unknownCommentRuleErrors(comments: AllowComment[], knownIds: string[]): InputError[] {
+  const known = new Set(knownIds);
+  return comments
+    .filter((comment) => !known.has(comment.ruleId))
+    .map((comment) => ({
+      file: comment.file,
+      line: comment.line,
+      column: comment.column,
+      message: `unknown rule id \`${comment.ruleId}\` in an isapart-allow comment; it suppresses nothing`,
+      hint: suggestionHint(comment.ruleId, knownIds.filter((id) => id !== UNUSED_ALLOW_RULE.id), 'rule ids'),
+    }));
 }
 
 /** The prefixes declared across the sources; the first declaration of a prefix name wins. */

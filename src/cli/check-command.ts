@@ -1,12 +1,13 @@
 // `isapart check`: normalise the options, run the library, write the report, return the exit code.
 import path from 'node:path';
 import { atOrAbove, check, exitCodeFor, parseRuleLevel, type FailOn } from '../check.js';
-import type { Level } from '../engine/finding.js';
+import type { Finding, Level } from '../engine/finding.js';
 import { toJson } from '../report/json.js';
 import { toSarif } from '../report/sarif.js';
 import { toText } from '../report/text.js';
 import type { Terminal } from './terminal.js';
-import { writeFileAtomically } from './write-output.js';
+import { printInputErrors, printRuleFailures } from './print-problems.js';
+import { outputPathProblem, writeFailureReason, writeFileAtomically } from './write-output.js';
 
 /** The options of `isapart check` as commander parses them. */
 export interface CheckCommandOptions {
@@ -44,6 +45,16 @@ function colourAllowed(options: CheckCommandOptions, terminal: Terminal): boolea
   return terminal.outIsTty;
 }
 
+/** The line that says how many findings `--quiet` left out, per level, or '' when it left out none. */
+function quietNote(hidden: Finding[], threshold: Level): string {
+  if (hidden.length === 0) return '';
+  const counts = (['warning', 'note'] as const)
+    .map((level) => ({ level, count: hidden.filter((finding) => finding.level === level).length }))
+    .filter((entry) => entry.count > 0)
+    .map((entry) => `${entry.count} ${entry.level}${entry.count === 1 ? '' : 's'}`);
+  return `--quiet: ${counts.join(', ')} below level ${threshold} not shown (the counts above leave them out); run without -q to see them\n`;
+}
+
 /** Runs `isapart check` and returns its exit code. */
 export async function runCheckCommand(
   paths: string[],
@@ -54,6 +65,13 @@ export async function runCheckCommand(
   const rules = parseRuleOptions(options.rule ?? []);
   if (rules.error) {
     terminal.err(`isapart: ${rules.error}\n`);
+    return 2;
+  }
+  const outputFile = options.output === undefined ? undefined : path.resolve(terminal.cwd, options.output);
+  // Checked before linting, so a long run is not wasted on a report that cannot be written.
+  const outputProblem = outputFile === undefined ? undefined : outputPathProblem(outputFile);
+  if (outputProblem !== undefined) {
+    terminal.err(`isapart: -o ${options.output}: cannot write the report there: ${outputProblem.reason}\n  hint: ${outputProblem.hint}\n`);
     return 2;
   }
   const result = await check({
@@ -69,15 +87,24 @@ export async function runCheckCommand(
     commandLine,
   });
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
-  const shown =
-    options.quiet && options.format === 'text'
-      ? result.findings.filter((finding) => atOrAbove(finding.level, threshold))
-      : result.findings;
-  const report = FORMATTERS[options.format](shown, result.context);
-  if (options.output) {
-    await writeFileAtomically(path.resolve(terminal.cwd, options.output), report);
-  } else {
+  const quietText = options.quiet === true && options.format === 'text';
+  const shown = quietText ? result.findings.filter((finding) => finding.suppression || atOrAbove(finding.level, threshold)) : result.findings;
+  const hidden = quietText ? result.findings.filter((finding) => !finding.suppression && !atOrAbove(finding.level, threshold)) : [];
+  const report = FORMATTERS[options.format](shown, result.context) + quietNote(hidden, threshold);
+  // A report that is not text on the terminal (a file, or JSON/SARIF on stdout) would leave the errors unseen.
+  if (outputFile !== undefined || options.format !== 'text') {
+    printInputErrors(result.context.inputErrors, terminal);
+    printRuleFailures(result.context.ruleFailures, terminal);
+  }
+  if (outputFile === undefined) {
     terminal.out(report);
+    return exitCodeFor(result, options.failOn);
+  }
+  try {
+    await writeFileAtomically(outputFile, report);
+  } catch (error) {
+    terminal.err(`isapart: -o ${options.output}: the report could not be written: ${writeFailureReason(error)}\n`);
+    return 2;
   }
   return exitCodeFor(result, options.failOn);
 }

@@ -20,6 +20,16 @@ Suppress one finding in a Turtle file with a comment at the end of the statement
 on the line above it:   # isapart-allow RULE-ID: reason
 Config: the nearest isapart.yaml upward from the first path ('isapart init' writes a starter).`;
 
+const PROGRAM_HELP = `
+Start:
+  $ isapart check extract.ttl        lint a Turtle, TriG, N-Triples or N-Quads file (or a folder, or - for stdin)
+  $ isapart rules                    the rules, their levels and what each flags
+  $ isapart explain kind-and-part    one rule's description with a flagged and a clean example
+  $ isapart init                     write a commented starter isapart.yaml here
+
+Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it; 2 a usage, config or input error.
+Run 'isapart help check' for the options of check.`;
+
 /** Collects a repeatable option's values. */
 function collect(value: string, previous: string[] = []): string[] {
   return [...previous, value];
@@ -40,6 +50,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
       writeOut: (text) => terminal.out(text),
       writeErr: (text) => terminal.err(text),
     })
+    .addHelpText('after', PROGRAM_HELP)
     .exitOverride();
 
   program
@@ -67,10 +78,11 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
 
   program
     .command('rules')
-    .description('list the built-in rules with their levels')
-    .addOption(new Option('--format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
-    .option('-c, --config <file>', 'config file whose levels and rule-dirs apply')
-    .action(async (options: { format: 'text' | 'json' | 'markdown'; config?: string }) => {
+    .description('list the rules (built-in and from rule-dirs) with their levels after config')
+    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
+    .option('-c, --config <file>', 'config file whose levels and rule-dirs apply (default: nearest isapart.yaml upward from here)')
+    .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
+    .action(async (options: { format: 'text' | 'json' | 'markdown'; config?: string; color: boolean }) => {
       setExit(await runRulesCommand(options, terminal));
     });
 

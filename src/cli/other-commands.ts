@@ -3,27 +3,20 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { rulesInUse } from '../check.js';
 import { starterConfig } from '../config/starter.js';
-import type { InputError } from '../load/statement.js';
+import { suggestionHint } from '../config/nearest.js';
 import { explainRule, rulesToJson, rulesToMarkdown, rulesToText } from '../report/rules-list.js';
+import { printInputErrors } from './print-problems.js';
 import type { Terminal } from './terminal.js';
 import { writeFileAtomically } from './write-output.js';
 
-/** Prints input errors to stderr as `file:line:col: message (hint)`. */
-function printErrors(errors: InputError[], terminal: Terminal): void {
-  for (const error of errors) {
-    const where = error.line > 0 ? `${error.file}:${error.line}:${error.column}` : error.file;
-    terminal.err(`${where}: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
-  }
-}
-
 /** Runs `isapart rules`. */
 export async function runRulesCommand(
-  options: { format: 'text' | 'json' | 'markdown'; config?: string },
+  options: { format: 'text' | 'json' | 'markdown'; config?: string; color: boolean },
   terminal: Terminal,
 ): Promise<number> {
   const { rules, errors } = rulesInUse({ configFile: options.config, cwd: terminal.cwd, paths: ['.'] });
-  printErrors(errors, terminal);
-  const color = terminal.outIsTty && !terminal.env.NO_COLOR;
+  printInputErrors(errors, terminal);
+  const color = options.color && terminal.outIsTty && !terminal.env.NO_COLOR;
   const text =
     options.format === 'json' ? rulesToJson(rules) : options.format === 'markdown' ? rulesToMarkdown(rules) : rulesToText(rules, color);
   terminal.out(text);
@@ -33,10 +26,11 @@ export async function runRulesCommand(
 /** Runs `isapart explain RULE-ID`. */
 export async function runExplainCommand(ruleId: string, options: { config?: string }, terminal: Terminal): Promise<number> {
   const { rules, errors } = rulesInUse({ configFile: options.config, cwd: terminal.cwd, paths: ['.'] });
-  printErrors(errors, terminal);
+  printInputErrors(errors, terminal);
   const found = rules.find((entry) => entry.rule.id === ruleId);
   if (!found) {
-    terminal.err(`isapart: no rule '${ruleId}'. Known rules: ${rules.map((entry) => entry.rule.id).join(', ')}\n`);
+    const hint = suggestionHint(ruleId, rules.map((entry) => entry.rule.id), 'rule ids');
+    terminal.err(`isapart: no rule '${ruleId}'\n  hint: ${hint}; 'isapart rules' lists them with their summaries\n`);
     return 2;
   }
   terminal.out(explainRule(found.rule, found.level));

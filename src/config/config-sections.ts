@@ -1,4 +1,5 @@
 // Readers for each top-level key of isapart.yaml: they validate one value and fill the config.
+import { statSync } from 'node:fs';
 import path from 'node:path';
 import { isMap, isSeq, type Node } from 'yaml';
 import type { RuleLevel } from '../engine/finding.js';
@@ -192,6 +193,14 @@ export function readRules(context: YamlReadContext, entry: MappingEntry, config:
   }
 }
 
+/** Why a path is not a usable folder (missing, or a file), or undefined when it is a folder; reads the file system. */
+export function folderProblem(absolute: string): string | undefined {
+  const found = statSync(absolute, { throwIfNoEntry: false });
+  if (found === undefined) return `does not exist (looked for ${absolute})`;
+  if (!found.isDirectory()) return `is a file, not a folder (${absolute})`;
+  return undefined;
+}
+
 /** `rule-dirs: [PATH, ...]` — folders of extra rule files, resolved against the config file's folder. */
 export function readRuleDirs(context: YamlReadContext, entry: MappingEntry, config: IsapartConfig): void {
   const items = listItems(context, entry, 'a list of folders', '[./team-rules]') ?? [];
@@ -209,6 +218,16 @@ export function readRuleDirs(context: YamlReadContext, entry: MappingEntry, conf
       continue;
     }
     const absolute = path.resolve(base, folder);
+    const problem = context.folderProblem?.(absolute);
+    if (problem !== undefined) {
+      reportAt(
+        context,
+        item,
+        `the rule folder \`${folder}\` in \`rule-dirs\` ${problem}; its rules were not loaded`,
+        `paths in rule-dirs are relative to the folder of this config file (${base}); create the folder or correct the path`,
+      );
+      continue;
+    }
     if (!config.ruleDirs.includes(absolute)) config.ruleDirs.push(absolute);
   }
 }

@@ -7,6 +7,7 @@ import { isPresetName } from '../roles/presets.js';
 import { describeRoleConflict, findRoleConflicts } from '../roles/role-map.js';
 import { DEFAULT_PRESETS, KNOWN_PRESETS, type IsapartConfig } from './config.js';
 import {
+  folderProblem,
   readAllow,
   readPresets,
   readRoles,
@@ -72,22 +73,32 @@ export function findConfigFile(startPath: string): string | undefined {
   }
 }
 
-/** Reads and validates a config file; an unreadable file is an error at line 1. */
+/** Why a config file cannot be read, in words: missing, a folder, not permitted, or the system's reason. */
+function unreadableReason(error: unknown): string {
+  const code = (error as NodeJS.ErrnoException).code;
+  if (code === 'ENOENT') return 'there is no such file';
+  if (code === 'EISDIR') return 'it is a folder, not a file';
+  if (code === 'EACCES' || code === 'EPERM') return 'permission to read it is denied';
+  return error instanceof Error ? error.message : String(error);
+}
+
+/** Reads and validates a config file; an unreadable file is an error with no line (line 0). */
 export function loadConfig(file: string): ConfigResult {
   let text: string;
   try {
     text = readFileSync(file, 'utf8');
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
     const config = { ...emptyConfig(), file };
-    const hint = 'check the path given with --config, or remove the option to search for isapart.yaml';
-    return { config, errors: [{ file, line: 1, column: 1, message: `cannot read the config file: ${reason}`, hint }] };
+    const hint = `check the path given with --config (a YAML file such as ${CONFIG_FILE_NAME}), or leave the option out to use the nearest ${CONFIG_FILE_NAME} upward from the first path`;
+    return { config, errors: [{ file, line: 0, column: 0, message: `the config file cannot be read: ${unreadableReason(error)}`, hint }] };
   }
-  return parseConfig(text, file);
+  return parseConfig(text, file, { folderProblem });
 }
 
-/** A hint for a YAML syntax error, by the yaml package's error code. */
-function syntaxHint(code: YAMLError['code']): string {
+/** A hint for a YAML syntax error, by the yaml package's error code (and its message, for unclosed brackets). */
+function syntaxHint(code: YAMLError['code'], message: string): string {
+  // The yaml package reports an unclosed `[` or `{` as an indentation problem where it gives up.
+  if (/^Flow (sequence|map|mapping) /.test(message)) return 'close the `[` or `{` opened above with `]` or `}` on the same entry, or indent its continuation lines';
   switch (code) {
     case 'DUPLICATE_KEY':
       return 'each key may appear once in a mapping; merge the two entries';
@@ -136,15 +147,20 @@ function sortedByPosition(errors: InputError[]): InputError[] {
   return [...errors].sort((left, right) => left.line - right.line || left.column - right.column);
 }
 
+/** What parseConfig may check beyond the text: with `folderProblem`, that each `rule-dirs` folder exists. */
+export interface ParseConfigOptions {
+  folderProblem?: (absolutePath: string) => string | undefined;
+}
+
 /** Validates the text of an isapart.yaml; returns the best config it could read and every problem found. */
-export function parseConfig(text: string, file: string): ConfigResult {
+export function parseConfig(text: string, file: string, options: ParseConfigOptions = {}): ConfigResult {
   const lineCounter = new LineCounter();
   const document = parseDocument(text, { lineCounter, prettyErrors: false });
-  const context: YamlReadContext = { file, document, lineCounter, errors: [] };
+  const context: YamlReadContext = { file, document, lineCounter, errors: [], folderProblem: options.folderProblem };
   for (const problem of [...document.errors, ...document.warnings]) {
     const { line, col } = lineCounter.linePos(problem.pos[0]);
     const kind = problem.name === 'YAMLWarning' ? 'warning' : 'syntax error';
-    context.errors.push({ file, line, column: col, message: `YAML ${kind}: ${plainYamlMessage(problem)}`, hint: syntaxHint(problem.code) });
+    context.errors.push({ file, line, column: col, message: `YAML ${kind}: ${plainYamlMessage(problem)}`, hint: syntaxHint(problem.code, plainYamlMessage(problem)) });
   }
   const config: IsapartConfig = { ...emptyConfig(), file };
   const contents = document.contents;
@@ -176,8 +192,8 @@ export function parseConfig(text: string, file: string): ConfigResult {
 
 /**
  * Unknown rule ids in `rules:` and `allow:`, with a nearest-id hint. An id in `rules` with no
- * recorded line came from `--rule` and is reported against the command line. The config keeps only
- * lines, so these errors stand at column 1 of their line.
+ * recorded line came from `--rule` and is reported against the command line (line 0: no line).
+ * The config keeps only lines, so the others stand at column 1 of their line.
  */
 export function checkRuleIds(config: IsapartConfig, knownIds: readonly string[]): InputError[] {
   const errors: InputError[] = [];
@@ -188,7 +204,7 @@ export function checkRuleIds(config: IsapartConfig, knownIds: readonly string[])
     const line = config.ruleLines[id];
     const message = line === undefined ? `--rule: unknown rule id \`${id}\`` : `unknown rule id \`${id}\` in \`rules\``;
     const file = line === undefined ? COMMAND_LINE_SOURCE : configFile;
-    errors.push({ file, line: line ?? 1, column: 1, message, hint: suggestionHint(id, knownIds, 'rule ids') });
+    errors.push({ file, line: line ?? 0, column: line === undefined ? 0 : 1, message, hint: suggestionHint(id, knownIds, 'rule ids') });
   }
   for (const entry of config.allow) {
     if (known.has(entry.rule)) continue;
@@ -198,16 +214,17 @@ export function checkRuleIds(config: IsapartConfig, knownIds: readonly string[])
   return errors;
 }
 
+/** An error in a command-line option: it has no line, so it is placed at line 0 (shown without one). */
 function commandLineError(option: string, message: string, hint: string): InputError {
-  return { file: COMMAND_LINE_SOURCE, line: 1, column: 1, message: `${option}: ${message}`, hint };
+  return { file: COMMAND_LINE_SOURCE, line: 0, column: 0, message: `${option}: ${message}`, hint };
 }
 
 /** Adds the valid IRIs of a repeatable option to a list; reports the others naming the option. */
-function addIris(target: string[], values: readonly string[], option: string, errors: InputError[]): void {
+function addIris(target: string[], values: readonly string[], option: { name: string; example: string }, errors: InputError[]): void {
   for (const value of values) {
     const problem = iriProblem(value);
     if (problem !== undefined) {
-      errors.push(commandLineError(option, `\`${value}\` is not an absolute IRI: ${problem}`, `write a full IRI such as ${option} https://data.northvale-rail.example/`));
+      errors.push(commandLineError(option.name, `\`${value}\` is not an absolute IRI: ${problem}`, `write a full IRI such as ${option.name} ${option.example}`));
     } else if (!target.includes(value)) {
       target.push(value);
     }
@@ -228,8 +245,8 @@ export function mergeCommandLine(config: IsapartConfig, options: CommandLineOver
     if (!isPresetName(name)) errors.push(commandLineError('--preset', `unknown preset \`${name}\``, suggestionHint(name, KNOWN_PRESETS, 'presets')));
     else if (!merged.presets.includes(name)) merged.presets.push(name);
   }
-  addIris(merged.scope, options.scope ?? [], '--scope', errors);
-  addIris(merged.roots, options.roots ?? [], '--root', errors);
+  addIris(merged.scope, options.scope ?? [], { name: '--scope', example: 'https://data.northvale-rail.example/' }, errors);
+  addIris(merged.roots, options.roots ?? [], { name: '--root', example: 'https://data.northvale-rail.example/def/Asset' }, errors);
   for (const [id, level] of Object.entries(options.ruleLevels ?? {})) {
     const known = RULE_LEVELS.find((candidate) => candidate === level);
     if (known === undefined) errors.push(commandLineError('--rule', `\`${id}=${level}\` has an unknown level \`${level}\``, `levels: ${RULE_LEVELS.join(', ')}`));

@@ -8,6 +8,8 @@ export interface YamlReadContext {
   document: Document;
   lineCounter: LineCounter;
   errors: InputError[];
+  /** Checks a folder named in the file (undefined: not checked, as for text that is not on disk). */
+  folderProblem?: (absolutePath: string) => string | undefined;
 }
 
 /** A 1-based line and column. */

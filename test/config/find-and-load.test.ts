@@ -69,14 +69,45 @@ describe('findConfigFile', () => {
 });
 
 describe('loadConfig', () => {
-  it('reports an unreadable file at line 1 with a hint, and returns the defaults', () => {
+  it('reports a missing file without a line (there is none) in plain words, with a hint, and returns the defaults', () => {
     const missing = path.join(tmpdir(), 'isapart-no-such-folder', 'isapart.yaml');
     const { config, errors } = loadConfig(missing);
     expect(config).toEqual({ ...emptyConfig(), file: missing });
-    expect(errors).toHaveLength(1);
-    expect(errors[0]).toMatchObject({ file: missing, line: 1, column: 1 });
-    expect(errors[0].message).toMatch(/^cannot read the config file: ENOENT/);
-    expect(errors[0].hint).toBe('check the path given with --config, or remove the option to search for isapart.yaml');
+    expect(errors).toEqual([
+      {
+        file: missing,
+        line: 0,
+        column: 0,
+        message: 'the config file cannot be read: there is no such file',
+        hint: 'check the path given with --config (a YAML file such as isapart.yaml), or leave the option out to use the nearest isapart.yaml upward from the first path',
+      },
+    ]);
+  });
+
+  it('says so when the config path is a folder', () => {
+    const folder = mkdtempSync(path.join(tmpdir(), 'isapart-config-folder-'));
+    expect(loadConfig(folder).errors.map((error) => error.message)).toEqual(['the config file cannot be read: it is a folder, not a file']);
+  });
+
+  it('reports a rule-dirs folder that does not exist, or is a file, at its item with the folder it looked for', () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'isapart-rule-dirs-'));
+    mkdirSync(path.join(dir, 'team-rules'));
+    writeFileSync(path.join(dir, 'notes.txt'), 'not a folder');
+    const file = path.join(dir, 'isapart.yaml');
+    writeFileSync(file, 'rule-dirs:\n  - ./team-rules\n  - ./team-rulez\n  - notes.txt\n');
+    const { config, errors } = loadConfig(file);
+    expect(config.ruleDirs).toEqual([path.join(dir, 'team-rules')]);
+    expect(errors.map((error) => `${error.line}:${error.column} ${error.message}`)).toEqual([
+      `3:5 the rule folder \`./team-rulez\` in \`rule-dirs\` does not exist (looked for ${path.join(dir, 'team-rulez')}); its rules were not loaded`,
+      `4:5 the rule folder \`notes.txt\` in \`rule-dirs\` is a file, not a folder (${path.join(dir, 'notes.txt')}); its rules were not loaded`,
+    ]);
+    expect(errors[0].hint).toBe(`paths in rule-dirs are relative to the folder of this config file (${dir}); create the folder or correct the path`);
+  });
+
+  it('leaves rule-dirs folders unchecked when only text is parsed', () => {
+    const { config, errors } = parseConfig('rule-dirs: [./not-there]\n', '/projects/northvale/isapart.yaml');
+    expect(errors).toEqual([]);
+    expect(config.ruleDirs).toEqual([path.resolve('/projects/northvale/not-there')]);
   });
 });
 
@@ -119,7 +150,7 @@ describe('checkRuleIds', () => {
   it('reports an unknown id given with --rule against the command line', () => {
     const { config } = mergeCommandLine(emptyConfig(), { ruleLevels: { 'kind-and-parts': 'off' } });
     expect(checkRuleIds(config, BUILT_IN_IDS)).toEqual([
-      { file: COMMAND_LINE_SOURCE, line: 1, column: 1, message: '--rule: unknown rule id `kind-and-parts`', hint: `did you mean \`kind-and-part\`? (known rule ids: ${BUILT_IN_IDS.join(', ')})` },
+      { file: COMMAND_LINE_SOURCE, line: 0, column: 0, message: '--rule: unknown rule id `kind-and-parts`', hint: `did you mean \`kind-and-part\`? (known rule ids: ${BUILT_IN_IDS.join(', ')})` },
     ]);
   });
 });
@@ -153,7 +184,7 @@ describe('mergeCommandLine', () => {
     expect(errors.map((error) => `${error.file} ${error.message} | ${error.hint}`)).toEqual([
       '<command line> --preset: unknown preset `skoss` | did you mean `skos`? (known presets: rdfs, owl, dcterms, schema, obo, skos)',
       '<command line> --scope: `northvale/` is not an absolute IRI: it has no scheme; an absolute IRI starts with a scheme such as `https:` | write a full IRI such as --scope https://data.northvale-rail.example/',
-      '<command line> --root: `https://data.northvale-rail.example/def/Rolling Stock` is not an absolute IRI: it contains a space at character 48 | write a full IRI such as --root https://data.northvale-rail.example/',
+      '<command line> --root: `https://data.northvale-rail.example/def/Rolling Stock` is not an absolute IRI: it contains a space at character 48 | write a full IRI such as --root https://data.northvale-rail.example/def/Asset',
       '<command line> --rule: `orphan-class=silent` has an unknown level `silent` | levels: error, warning, note, off',
     ]);
     expect(config.presets).toEqual(['rdfs', 'owl', 'dcterms', 'schema', 'obo']);

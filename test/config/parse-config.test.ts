@@ -249,6 +249,12 @@ describe('parseConfig errors', () => {
     expect(unclosed.errors[0].line).toBe(2);
   });
 
+  it('hints at the unclosed bracket, not at indentation, when a flow list or mapping is left open', () => {
+    const hint = 'close the `[` or `{` opened above with `]` or `}` on the same entry, or indent its continuation lines';
+    expect(parseConfig(`scope: [${NV}\nroots: []\n`, FILE).errors.map((error) => `${error.line}:${error.column} ${error.hint}`)).toContain(`2:1 ${hint}`);
+    expect(parseConfig('rules: { orphan-class: off\nscope: []\n', FILE).errors.map((error) => error.hint)).toContain(hint);
+  });
+
   it('puts the file on every error and returns the best config beside the errors', () => {
     const { config, errors } = parseConfig(`presets: [rdfs, nope]\nscope: [${NV}, "not an iri"]\nrules: { orphan-class: off, part-cycle: loud }\n`, FILE);
     expect(errors.map((error) => error.file)).toEqual([FILE, FILE, FILE]);
