@@ -189,12 +189,18 @@ function unknownCommentRuleErrors(comments: AllowComment[], knownIds: string[]):
     }));
 }
 
-/** The prefixes declared across the sources; the first declaration of a prefix name wins. */
+/**
+ * The prefixes declared across the sources, chosen as the graph chooses them for messages: a name
+ * keeps its first namespace and a namespace its first name, so messages and evidence agree.
+ */
 function declaredPrefixes(sources: LoadedSource[]): Record<string, string> {
   const prefixes: Record<string, string> = {};
+  const namespaces = new Set<string>();
   for (const source of sources) {
     for (const [name, namespace] of Object.entries(source.prefixes)) {
-      if (!(name in prefixes)) prefixes[name] = namespace;
+      if (name in prefixes || namespaces.has(namespace)) continue;
+      prefixes[name] = namespace;
+      namespaces.add(namespace);
     }
   }
   return prefixes;

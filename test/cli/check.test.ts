@@ -110,6 +110,16 @@ describe('isapart check', () => {
     expect((await run(dir, ['check', '--formt', 'json'])).code).toBe(2);
   });
 
+  it('writes messages and evidence with the same prefix when two names are declared for one namespace', async () => {
+    const first = '@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .\n@prefix aa: <https://data.northvale-rail.example/def/> .\naa:Car rdfs:subClassOf aa:Vehicle .\n';
+    const second = '@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .\n@prefix zz: <https://data.northvale-rail.example/def/> .\nzz:Vehicle rdfs:subClassOf zz:Car .\n';
+    const dir = folderWith({ 'a.ttl': first, 'b.ttl': second });
+    const result = await run(dir, ['check', '.']);
+    expect(result.out).toContain('aa:Car → aa:Vehicle → aa:Car');
+    expect(result.out).toContain('aa:Vehicle rdfs:subClassOf aa:Car');
+    expect(result.out).not.toContain('zz:');
+  });
+
   it('teaches in --help: examples, exit codes, suppression', async () => {
     const result = await run(folderWith({}), ['check', '--help']);
     expect(result.code).toBe(0);
