@@ -18,91 +18,110 @@ export function createBindings(nodeSlotCount: number, listSlotCount: number): Bi
   return { nodes: new Int32Array(nodeSlotCount).fill(-1), lists: new Array(listSlotCount).fill(undefined) };
 }
 
+/** The handler of an anti-join: its first inner solution settles it. */
+const STOP_AT_FIRST: SolutionHandler = () => true;
+
 /**
  * Runs plan steps from the current bindings and calls `onSolution` for each solution. Returns true
  * when a handler asked to stop. The bindings object is reused: copy what you keep.
  */
 export function evaluatePlan(graph: HierarchyGraph, steps: PlanStep[], bindings: Bindings, onSolution: SolutionHandler): boolean {
-  const nodes = bindings.nodes;
-  const runFrom = (index: number): boolean => {
-    if (index === steps.length) return onSolution(bindings);
+  return new PlanRunner(graph, bindings).run(steps, 0, onSolution);
+}
+
+/** Backtracking over plan steps; one runner serves a plan and its anti-joins, so no closure is made per step. */
+class PlanRunner {
+  private readonly nodes: Int32Array;
+
+  constructor(
+    private readonly graph: HierarchyGraph,
+    private readonly bindings: Bindings,
+  ) {
+    this.nodes = bindings.nodes;
+  }
+
+  /** Runs `steps` from `index` on; true when `onSolution` asked to stop. */
+  run(steps: PlanStep[], index: number, onSolution: SolutionHandler): boolean {
+    if (index === steps.length) return onSolution(this.bindings);
+    const { graph, nodes } = this;
     const step = steps[index];
     const next = index + 1;
     switch (step.kind) {
       case 'is':
-        if (!step.generate) return graph.is(step.nodeKind, nodes[step.slot]) ? runFrom(next) : false;
+        if (!step.generate) return graph.is(step.nodeKind, nodes[step.slot]) ? this.run(steps, next, onSolution) : false;
         for (let id = 0; id < graph.nodeCount; id++) {
           if (!graph.is(step.nodeKind, id)) continue;
           nodes[step.slot] = id;
-          if (runFrom(next)) return true;
+          if (this.run(steps, next, onSolution)) return true;
         }
         return false;
       case 'differ':
-        return nodes[step.left] !== nodes[step.right] ? runFrom(next) : false;
+        return nodes[step.left] !== nodes[step.right] ? this.run(steps, next, onSolution) : false;
       case 'edge-check':
-        return hasStep(graph, step.steps, nodes[step.subject], nodes[step.object]) ? runFrom(next) : false;
+        return hasStep(graph, step.steps, nodes[step.subject], nodes[step.object]) ? this.run(steps, next, onSolution) : false;
       case 'path-check':
-        return step.search.holds(nodes[step.subject], nodes[step.object]) ? runFrom(next) : false;
+        return step.search.holds(nodes[step.subject], nodes[step.object]) ? this.run(steps, next, onSolution) : false;
       case 'absent':
-        return step.search.reachesAny(nodes[step.slot]) ? false : runFrom(next);
+        return step.search.reachesAny(nodes[step.slot]) ? false : this.run(steps, next, onSolution);
       case 'anti-join':
-        return evaluatePlan(graph, step.steps, bindings, () => true) ? false : runFrom(next);
+        return this.run(step.steps, 0, STOP_AT_FIRST) ? false : this.run(steps, next, onSolution);
       case 'expand': {
         const ends = step.search.from(nodes[step.bound]);
-        for (let index = 0; index < ends.length; index++) {
-          nodes[step.free] = ends[index];
-          if (runFrom(next)) return true;
+        for (let end = 0; end < ends.length; end++) {
+          nodes[step.free] = ends[end];
+          if (this.run(steps, next, onSolution)) return true;
         }
         return false;
       }
       case 'generate':
-        return generate(graph, step, nodes, () => runFrom(next));
+        return this.generate(step, steps, next, onSolution);
       case 'cycle': {
         const count = step.source.count();
         for (let component = 0; component < count; component++) {
-          bindings.lists[step.slot] = step.source.component(component);
-          if (runFrom(next)) return true;
+          this.bindings.lists[step.slot] = step.source.component(component);
+          if (this.run(steps, next, onSolution)) return true;
         }
         return false;
       }
     }
-  };
-  return runFrom(0);
+  }
+
+  /** Enumerates every (subject, object) pair of a path with neither end bound, subjects ascending, running the steps after it for each. */
+  private generate(step: Extract<PlanStep, { kind: 'generate' }>, steps: PlanStep[], next: number, onSolution: SolutionHandler): boolean {
+    const { graph, nodes } = this;
+    const { subject, object, search } = step;
+    const roleSteps = step.steps;
+    for (let id = 0; id < graph.nodeCount; id++) {
+      if (subject === object) {
+        const holds = roleSteps !== undefined ? hasStep(graph, roleSteps, id, id) : search.holds(id, id);
+        if (!holds) continue;
+        nodes[subject] = id;
+        if (this.run(steps, next, onSolution)) return true;
+        continue;
+      }
+      nodes[subject] = id;
+      if (roleSteps !== undefined && roleSteps.length === 1 && roleSteps[0].direction === FORWARD) {
+        const targets = graph.successors(roleSteps[0].role, id);
+        for (let index = 0; index < targets.length; index++) {
+          nodes[object] = targets[index];
+          if (this.run(steps, next, onSolution)) return true;
+        }
+        continue;
+      }
+      const ends = search.from(id);
+      for (let index = 0; index < ends.length; index++) {
+        nodes[object] = ends[index];
+        if (this.run(steps, next, onSolution)) return true;
+      }
+    }
+    return false;
+  }
 }
 
 /** Whether one of the single steps connects two nodes. */
 function hasStep(graph: HierarchyGraph, steps: RoleStep[], from: number, to: number): boolean {
   for (const { role, direction } of steps) {
     if (direction === FORWARD ? graph.hasEdge(role, from, to) : graph.hasEdge(role, to, from)) return true;
-  }
-  return false;
-}
-
-/** Enumerates every (subject, object) pair of a path with neither end bound, subjects ascending. */
-function generate(graph: HierarchyGraph, step: Extract<PlanStep, { kind: 'generate' }>, nodes: Int32Array, next: () => boolean): boolean {
-  const { subject, object, search, steps } = step;
-  for (let id = 0; id < graph.nodeCount; id++) {
-    if (subject === object) {
-      const holds = steps !== undefined ? hasStep(graph, steps, id, id) : search.holds(id, id);
-      if (!holds) continue;
-      nodes[subject] = id;
-      if (next()) return true;
-      continue;
-    }
-    nodes[subject] = id;
-    if (steps !== undefined && steps.length === 1 && steps[0].direction === FORWARD) {
-      const targets = graph.successors(steps[0].role, id);
-      for (let index = 0; index < targets.length; index++) {
-        nodes[object] = targets[index];
-        if (next()) return true;
-      }
-      continue;
-    }
-    const ends = search.from(id);
-    for (let index = 0; index < ends.length; index++) {
-      nodes[object] = ends[index];
-      if (next()) return true;
-    }
   }
   return false;
 }

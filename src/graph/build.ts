@@ -1,6 +1,6 @@
 // Builds the HierarchyGraph from loaded statements: intern terms, read roles and axioms, pack CSR.
-import type { InputError, Literal, LoadedSource, Statement } from '../load/statement.js';
-import { ROLES, SYMMETRIC_ROLES, type Role, type RoleMap } from '../roles/role.js';
+import type { InputError, Literal, LoadedSource } from '../load/statement.js';
+import { ROLES, SYMMETRIC_ROLES, type PredicateMapping, type Role, type RoleMap } from '../roles/role.js';
 import {
   OWL_DEPRECATED,
   OWL_MEMBERS,
@@ -14,9 +14,18 @@ import type { GraphStats, HierarchyGraph, ScopeOptions } from './hierarchy-graph
 import { BuiltHierarchyGraph, KIND_BITS, distinctEdgeCount } from './built-graph.js';
 import { EdgeCollector, buildAdjacency, type RoleAdjacency } from './csr.js';
 import { PrefixTable } from './display.js';
-import { TermInterner } from './interner.js';
-import { type AxiomIndex, indexAxioms, isBlank, walkList } from './owl-axioms.js';
+import type { TermInterner } from './interner.js';
+import {
+  type AxiomIndex,
+  indexAxioms,
+  isAllDisjointClasses,
+  isBlank,
+  isBlankSubject,
+  isStructure,
+  walkList,
+} from './owl-axioms.js';
 import { inScopeTest } from './scope.js';
+import { LITERAL_OBJECT, tabulateStatements, type StatementTable } from './statement-table.js';
 
 /** Lexical forms of a true owl:deprecated (xsd:boolean allows "true" and "1", XSD 1.1 Part 2; from memory). */
 const TRUE_FORMS: ReadonlySet<string> = new Set(['true', '1']);
@@ -39,91 +48,140 @@ function emptyRoleCounts(): Record<Role, number> {
   return Object.fromEntries(ROLES.map((role) => [role, 0])) as Record<Role, number>;
 }
 
-/** The second pass: reads every statement once, interning node terms in first-seen order. */
+/** What one distinct predicate means to the reader, worked out once instead of per statement. */
+interface PredicateFacts {
+  iri: string;
+  mapping: PredicateMapping | undefined;
+  /** The collector of the mapped role's edges. */
+  collector: EdgeCollector | undefined;
+  symmetric: boolean;
+  isType: boolean;
+  isMembers: boolean;
+  isDeprecated: boolean;
+  isLabel: boolean;
+}
+
+/** Bits of the reader's per-term marks. */
+const ROOT_TERM = 1;
+const CLASS_TYPE_TERM = 2;
+
+/** The second pass: reads every statement once, making terms nodes in the order they first play a part. */
 class StatementReader {
-  readonly interner = new TermInterner();
   readonly collectors = Object.fromEntries(ROLES.map((role) => [role, new EdgeCollector()])) as Record<Role, EdgeCollector>;
   readonly declaredClasses: number[] = [];
   readonly deprecated: number[] = [];
-  readonly labels = new Map<string, { value: string; rank: number }>();
+  /** Best label so far per term number, and its rank (see labelRank). */
+  readonly labelValues: (string | undefined)[];
+  readonly labelRanks: Int8Array;
   readonly problems: InputError[] = [];
   readonly roleStatements = emptyRoleCounts();
   axiomStatements = 0;
   skippedRoleStatements = 0;
   brokenLists = 0;
-  private readonly roots: ReadonlySet<string>;
+  private readonly predicateFacts: PredicateFacts[];
+  private readonly termMarks: Uint8Array;
 
   constructor(
-    private readonly statements: readonly Statement[],
+    private readonly table: StatementTable,
     private readonly axioms: AxiomIndex,
     private readonly roles: RoleMap,
     scope: ScopeOptions,
   ) {
-    this.roots = new Set(scope.roots);
+    const { terms } = table;
+    this.predicateFacts = table.predicateIris.map((iri) => this.factsOf(iri));
+    this.termMarks = new Uint8Array(terms.termCount);
+    this.labelValues = new Array<string | undefined>(terms.termCount).fill(undefined);
+    this.labelRanks = new Int8Array(terms.termCount);
+    for (const root of scope.roots) this.mark(root, ROOT_TERM);
+    for (const classType of roles.classTypes) this.mark(classType, CLASS_TYPE_TERM);
   }
 
   /** Reads all statements in source order. */
   readAll(): void {
-    for (let index = 0; index < this.statements.length; index++) this.read(index);
+    for (let row = 0; row < this.table.statements.length; row++) this.read(row);
   }
 
-  private read(index: number): void {
-    const statement = this.statements[index];
-    const { subject, predicate, object } = statement;
-    const subjectIsAxiom = this.axioms.structures.has(subject);
-    const objectIsAxiom = typeof object === 'string' && this.axioms.structures.has(object);
+  private factsOf(iri: string): PredicateFacts {
+    const mapping = this.roles.get(iri);
+    return {
+      iri,
+      mapping,
+      collector: mapping === undefined ? undefined : this.collectors[mapping.role],
+      symmetric: mapping !== undefined && SYMMETRIC_ROLES.has(mapping.role),
+      isType: iri === RDF_TYPE,
+      isMembers: iri === OWL_MEMBERS,
+      isDeprecated: iri === OWL_DEPRECATED,
+      isLabel: iri === RDFS_LABEL || iri === SKOS_PREF_LABEL,
+    };
+  }
+
+  private mark(term: string, bit: number): void {
+    const termNumber = this.table.terms.numberOf(term);
+    if (termNumber >= 0) this.termMarks[termNumber] |= bit;
+  }
+
+  private read(row: number): void {
+    const { terms } = this.table;
+    const subject = this.table.subjects[row];
+    const object = this.table.objects[row];
+    const facts = this.predicateFacts[this.table.predicates[row]];
+    const subjectIsAxiom = isStructure(this.axioms, subject);
+    const objectIsAxiom = object !== LITERAL_OBJECT && isStructure(this.axioms, object);
     if (subjectIsAxiom || objectIsAxiom) this.axiomStatements++;
-    if (subjectIsAxiom && predicate === OWL_MEMBERS && this.axioms.allDisjointClasses.has(subject)) {
-      if (this.roles.readsAllDisjointClasses) this.readDisjointMembers(index);
+    if (subjectIsAxiom && facts.isMembers && isAllDisjointClasses(this.axioms, subject)) {
+      if (this.roles.readsAllDisjointClasses) this.readDisjointMembers(row);
     }
 
-    const mapping = this.roles.get(predicate);
-    if (mapping !== undefined) {
-      if (typeof object !== 'string') {
+    const { mapping, collector } = facts;
+    if (mapping !== undefined && collector !== undefined) {
+      if (object === LITERAL_OBJECT) {
         this.skippedRoleStatements++;
+        const statement = this.table.statements[row];
         this.problems.push({
           ...statement.position,
-          message: `<${predicate}> (${mapping.role}) has a literal object "${object.value}", so it adds no edge`,
+          message: `<${facts.iri}> (${mapping.role}) has a literal object "${(statement.object as Literal).value}", so it adds no edge`,
           hint: 'the object of a hierarchy predicate must be an IRI or a blank node; write <IRI> or a prefixed name, not a quoted string',
         });
       } else if (subjectIsAxiom || objectIsAxiom) {
         this.skippedRoleStatements++;
       } else {
-        const from = this.interner.intern(subject);
-        const to = this.interner.intern(object);
-        this.addEdge(mapping.role, mapping.inverse ? to : from, mapping.inverse ? from : to, index);
+        const from = terms.makeNode(subject);
+        const to = terms.makeNode(object);
+        if (mapping.inverse) this.addEdge(collector, facts.symmetric, to, from, row);
+        else this.addEdge(collector, facts.symmetric, from, to, row);
         this.roleStatements[mapping.role]++;
       }
     }
     if (subjectIsAxiom) return;
-    if (predicate === RDF_TYPE && typeof object === 'string' && this.roles.classTypes.has(object)) {
-      this.declaredClasses.push(this.interner.intern(subject));
+    if (facts.isType && object !== LITERAL_OBJECT && (this.termMarks[object] & CLASS_TYPE_TERM) !== 0) {
+      this.declaredClasses.push(terms.makeNode(subject));
     }
-    if (predicate === OWL_DEPRECATED && this.roles.readsDeprecated && isTrueLiteral(object)) {
-      this.deprecated.push(this.interner.intern(subject));
+    if (facts.isDeprecated && this.roles.readsDeprecated && isTrueLiteral(this.table.statements[row].object)) {
+      this.deprecated.push(terms.makeNode(subject));
     }
-    if ((predicate === RDFS_LABEL || predicate === SKOS_PREF_LABEL) && typeof object !== 'string') {
-      this.offerLabel(subject, predicate, object);
+    if (facts.isLabel && object === LITERAL_OBJECT) {
+      this.offerLabel(subject, facts.iri, this.table.statements[row].object as Literal);
     }
-    if (this.roots.has(subject)) this.interner.intern(subject);
-    if (typeof object === 'string' && !objectIsAxiom && this.roots.has(object)) this.interner.intern(object);
+    if ((this.termMarks[subject] & ROOT_TERM) !== 0) terms.makeNode(subject);
+    if (object !== LITERAL_OBJECT && !objectIsAxiom && (this.termMarks[object] & ROOT_TERM) !== 0) terms.makeNode(object);
   }
 
   /** Adds an edge; a symmetric role gets its mirror too, with the same statement. */
-  private addEdge(role: Role, from: number, to: number, statement: number): void {
-    this.collectors[role].add(from, to, statement);
-    if (SYMMETRIC_ROLES.has(role)) this.collectors[role].add(to, from, statement);
+  private addEdge(collector: EdgeCollector, symmetric: boolean, from: number, to: number, statement: number): void {
+    collector.add(from, to, statement);
+    if (symmetric) collector.add(to, from, statement);
   }
 
   /** owl:AllDisjointClasses owl:members (...): every pair of distinct members is disjoint-with. */
-  private readDisjointMembers(index: number): void {
-    const statement = this.statements[index];
-    const walk = typeof statement.object === 'string'
-      ? walkList(statement.object, this.axioms, this.statements, index)
-      : { problem: 'owl:members has a literal object', statement: index };
+  private readDisjointMembers(row: number): void {
+    const { statements, objects, terms } = this.table;
+    const statement = statements[row];
+    const walk = objects[row] !== LITERAL_OBJECT
+      ? walkList(objects[row], this.axioms, this.table, row)
+      : { problem: 'owl:members has a literal object', statement: row };
     if ('problem' in walk) {
       this.brokenLists++;
-      const where = this.statements[walk.statement].position;
+      const where = statements[walk.statement].position;
       this.problems.push({
         ...where,
         message: `the owl:members list of owl:AllDisjointClasses ${statement.subject} cannot be read: ${walk.problem}; its disjointness is skipped`,
@@ -133,36 +191,40 @@ class StatementReader {
     }
     const members = [...new Set(walk.members)];
     // Class expressions among the members cannot be hierarchy nodes; their pairs are skipped.
-    const named = members.filter((member) => !this.axioms.structures.has(member));
+    const named = members.filter((member) => !isStructure(this.axioms, member));
     if (named.length < members.length) this.skippedRoleStatements++;
-    const ids = named.map((member) => this.interner.intern(member));
+    const ids = named.map((member) => terms.makeNode(member));
+    const collector = this.collectors['disjoint-with'];
+    const symmetric = SYMMETRIC_ROLES.has('disjoint-with');
     for (let left = 0; left < ids.length; left++) {
-      for (let right = left + 1; right < ids.length; right++) this.addEdge('disjoint-with', ids[left], ids[right], index);
+      for (let right = left + 1; right < ids.length; right++) this.addEdge(collector, symmetric, ids[left], ids[right], row);
     }
     if (ids.length > 1) this.roleStatements['disjoint-with']++;
   }
 
-  private offerLabel(subject: string, predicate: string, literal: Literal): void {
+  private offerLabel(subject: number, predicate: string, literal: Literal): void {
     const rank = labelRank(predicate, literal);
-    const current = this.labels.get(subject);
-    if (current === undefined || rank < current.rank) this.labels.set(subject, { value: literal.value, rank });
+    if (this.labelValues[subject] === undefined || rank < this.labelRanks[subject]) {
+      this.labelValues[subject] = literal.value;
+      this.labelRanks[subject] = rank;
+    }
   }
 }
 
 /** Node kind flags from the packed adjacency and what the reader found. */
 function nodeFlags(options: {
   reader: StatementReader;
+  terms: TermInterner;
   adjacency: Record<Role, RoleAdjacency>;
   axioms: AxiomIndex;
   scope: ScopeOptions;
 }): Uint8Array {
-  const { reader, adjacency, axioms, scope } = options;
-  const { interner } = reader;
-  const flags = new Uint8Array(interner.size);
+  const { reader, terms, adjacency, axioms, scope } = options;
+  const flags = new Uint8Array(terms.size);
   for (const id of reader.declaredClasses) flags[id] |= KIND_BITS['declared-class'] | KIND_BITS.class;
   for (const id of reader.deprecated) flags[id] |= KIND_BITS.deprecated;
   for (const root of scope.roots) {
-    const id = interner.idOf(root);
+    const id = terms.idOf(root);
     if (id >= 0) flags[id] |= KIND_BITS.root;
   }
   const instanceOf = adjacency['instance-of'];
@@ -176,27 +238,37 @@ function nodeFlags(options: {
     if (isClass) flags[id] |= KIND_BITS.class;
     const hasType = instanceOf.offsets[id + 1] > instanceOf.offsets[id];
     if (hasType && (flags[id] & KIND_BITS.class) === 0) flags[id] |= KIND_BITS.individual;
-    const term = interner.term(id);
-    if (isBlank(term) ? axioms.blankSubjects.has(term) : inScope(term)) flags[id] |= KIND_BITS['in-scope'];
+    const term = terms.term(id);
+    if (isBlank(term) ? isBlankSubject(axioms, terms.numberOfNode(id)) : inScope(term)) flags[id] |= KIND_BITS['in-scope'];
   }
   return flags;
 }
 
-/** Index of each node's first statement as subject, else as object (-1 when none). */
-function firstStatements(interner: TermInterner, statements: readonly Statement[]): Int32Array {
-  const asSubject = new Int32Array(interner.size).fill(-1);
-  const asObject = new Int32Array(interner.size).fill(-1);
-  for (let index = 0; index < statements.length; index++) {
-    const { subject, object } = statements[index];
-    const subjectId = interner.idOf(subject);
-    if (subjectId >= 0 && asSubject[subjectId] < 0) asSubject[subjectId] = index;
-    if (typeof object === 'string') {
-      const objectId = interner.idOf(object);
-      if (objectId >= 0 && asObject[objectId] < 0) asObject[objectId] = index;
+/** Row of each node's first statement as subject, else as object (-1 when none). */
+function firstStatements(table: StatementTable): Int32Array {
+  const { terms, subjects, objects } = table;
+  const asSubject = new Int32Array(terms.size).fill(-1);
+  const asObject = new Int32Array(terms.size).fill(-1);
+  for (let row = 0; row < subjects.length; row++) {
+    const subjectId = terms.nodeOf(subjects[row]);
+    if (subjectId >= 0 && asSubject[subjectId] < 0) asSubject[subjectId] = row;
+    if (objects[row] !== LITERAL_OBJECT) {
+      const objectId = terms.nodeOf(objects[row]);
+      if (objectId >= 0 && asObject[objectId] < 0) asObject[objectId] = row;
     }
   }
   for (let id = 0; id < asSubject.length; id++) if (asSubject[id] < 0) asSubject[id] = asObject[id];
   return asSubject;
+}
+
+/** Labels by node id, from the reader's labels by term number. */
+function nodeLabels(reader: StatementReader, terms: TermInterner): (string | undefined)[] {
+  const labels = new Array<string | undefined>(terms.size).fill(undefined);
+  for (let termNumber = 0; termNumber < reader.labelValues.length; termNumber++) {
+    const id = terms.nodeOf(termNumber);
+    if (id >= 0) labels[id] = reader.labelValues[termNumber];
+  }
+  return labels;
 }
 
 /**
@@ -207,21 +279,16 @@ function firstStatements(interner: TermInterner, statements: readonly Statement[
  * broken lists are also listed in `problems` with their position and a hint.
  */
 export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, scope: ScopeOptions): HierarchyGraph {
-  const statements: Statement[] = [];
-  for (const source of sources) for (const statement of source.statements) statements.push(statement);
-  const axioms = indexAxioms(statements);
-  const reader = new StatementReader(statements, axioms, roles, scope);
+  const table = tabulateStatements(sources);
+  const axioms = indexAxioms(table);
+  const reader = new StatementReader(table, axioms, roles, scope);
   reader.readAll();
 
-  const nodeCount = reader.interner.size;
+  const { terms, statements } = table;
+  const nodeCount = terms.size;
   const adjacency = Object.fromEntries(
     ROLES.map((role) => [role, buildAdjacency(nodeCount, reader.collectors[role])]),
   ) as Record<Role, RoleAdjacency>;
-  const labels = new Map<number, string>();
-  for (const [term, { value }] of reader.labels) {
-    const id = reader.interner.idOf(term);
-    if (id >= 0) labels.set(id, value);
-  }
   const edges = emptyRoleCounts();
   for (const role of ROLES) edges[role] = distinctEdgeCount(role, adjacency[role]);
   const stats: GraphStats = {
@@ -234,11 +301,11 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
     nodes: nodeCount,
   };
   return new BuiltHierarchyGraph({
-    interner: reader.interner,
+    interner: terms,
     adjacency,
-    flags: nodeFlags({ reader, adjacency, axioms, scope }),
-    firstStatements: firstStatements(reader.interner, statements),
-    labels,
+    flags: nodeFlags({ reader, terms, adjacency, axioms, scope }),
+    firstStatements: firstStatements(table),
+    labels: nodeLabels(reader, terms),
     statements,
     prefixes: new PrefixTable(sources),
     stats,

@@ -16,6 +16,9 @@ export const KIND_BITS: Readonly<Record<NodeKind, number>> = {
   'in-scope': 32,
 };
 
+/** The neighbour list of a node without edges of a role; empty, so it cannot be modified. */
+const NO_NEIGHBOURS = new Int32Array(0);
+
 /** Everything the builder hands over; nothing of it changes afterwards. */
 export interface GraphParts {
   interner: TermInterner;
@@ -24,7 +27,8 @@ export interface GraphParts {
   flags: Uint8Array;
   /** Index into `statements` of the node's first statement, or -1. */
   firstStatements: Int32Array;
-  labels: Map<number, string>;
+  /** Label per node id, undefined when none was stated. */
+  labels: readonly (string | undefined)[];
   /** All statements of all sources, in source order; evidence indices point here. */
   statements: readonly Statement[];
   prefixes: PrefixTable;
@@ -55,16 +59,16 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
     return this.parts.interner.idOf(term);
   }
 
-  /** Targets of the node's outgoing edges of a role, ascending. */
+  /** Targets of the node's outgoing edges of a role, ascending (empty for a node without such edges or an unknown id). */
   successors(role: Role, id: number): Int32Array {
     const { offsets, targets } = this.parts.adjacency[role];
-    return targets.subarray(offsets[id], offsets[id + 1]);
+    return neighbourView(targets, offsets[id], offsets[id + 1]);
   }
 
-  /** Sources of the node's incoming edges of a role, ascending. */
+  /** Sources of the node's incoming edges of a role, ascending (empty for a node without such edges or an unknown id). */
   predecessors(role: Role, id: number): Int32Array {
     const { reverseOffsets, reverseSources } = this.parts.adjacency[role];
-    return reverseSources.subarray(reverseOffsets[id], reverseOffsets[id + 1]);
+    return neighbourView(reverseSources, reverseOffsets[id], reverseOffsets[id + 1]);
   }
 
   /** Whether the edge from → to of the role exists. */
@@ -104,12 +108,20 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
 
   /** The node's rdfs:label or skos:prefLabel, when stated. */
   label(id: number): string | undefined {
-    return this.parts.labels.get(id);
+    return this.validId(id) ? this.parts.labels[id] : undefined;
   }
 
   private validId(id: number): boolean {
     return Number.isInteger(id) && id >= 0 && id < this.nodeCount;
   }
+}
+
+/**
+ * The part start..end of a neighbour column. Nodes without neighbours share one empty view, since
+ * making a view costs more than the lookup; an unknown id has undefined ends and gets it too.
+ */
+function neighbourView(column: Int32Array, start: number, end: number): Int32Array {
+  return start === end ? NO_NEIGHBOURS : column.subarray(start, end);
 }
 
 /** Distinct edges of a role's adjacency; a symmetric edge and its mirror count once. */

@@ -1,5 +1,4 @@
 // OWL axiom structures: which terms are axioms rather than hierarchy nodes, and walking RDF lists.
-import type { Statement } from '../load/statement.js';
 import {
   OWL_ALL_DIFFERENT,
   OWL_ALL_DISJOINT_CLASSES,
@@ -16,6 +15,7 @@ import {
   RDF_REST,
   RDF_TYPE,
 } from '../roles/vocabulary.js';
+import { LITERAL_OBJECT, type StatementTable } from './statement-table.js';
 
 /** owl:onProperty — the property a restriction is on (OWL 2 Mapping to RDF Graphs; from memory). */
 const OWL_ON_PROPERTY = `${OWL_NAMESPACE}onProperty`;
@@ -38,18 +38,19 @@ const STRUCTURE_PREDICATES: ReadonlySet<string> = new Set([
   OWL_ON_PROPERTY,
 ]);
 
-/** What the first pass over the statements found about axiom structures and lists. */
+/** Bits of `AxiomIndex.termFlags`. */
+const STRUCTURE = 1;
+const ALL_DISJOINT_CLASSES = 2;
+const BLANK_SUBJECT = 4;
+
+/** What the first pass over the statements found about axiom structures and lists, by term number. */
 export interface AxiomIndex {
-  /** Terms read as axiom structure, not as nodes. */
-  structures: Set<string>;
-  /** Terms typed owl:AllDisjointClasses. */
-  allDisjointClasses: Set<string>;
-  /** List node → index of its rdf:first statements (more than one makes the list broken). */
-  listFirst: Map<string, number[]>;
-  /** List node → index of its rdf:rest statements. */
-  listRest: Map<string, number[]>;
-  /** Blank nodes that are the subject of some statement (these are in scope). */
-  blankSubjects: Set<string>;
+  /** Per term number: STRUCTURE, ALL_DISJOINT_CLASSES and BLANK_SUBJECT bits. */
+  termFlags: Uint8Array;
+  /** List node → rows of its rdf:first statements (more than one makes the list broken). */
+  listFirst: Map<number, number[]>;
+  /** List node → rows of its rdf:rest statements. */
+  listRest: Map<number, number[]>;
 }
 
 /** Whether a term is a blank node label. */
@@ -57,67 +58,106 @@ export function isBlank(term: string): boolean {
   return term.startsWith('_:');
 }
 
-function append(map: Map<string, number[]>, key: string, value: number): void {
+/** Whether a term is read as axiom structure, not as a node. */
+export function isStructure(index: AxiomIndex, termNumber: number): boolean {
+  return (index.termFlags[termNumber] & STRUCTURE) !== 0;
+}
+
+/** Whether a term is typed owl:AllDisjointClasses. */
+export function isAllDisjointClasses(index: AxiomIndex, termNumber: number): boolean {
+  return (index.termFlags[termNumber] & ALL_DISJOINT_CLASSES) !== 0;
+}
+
+/** Whether a term is a blank node that is the subject of some statement (these are in scope). */
+export function isBlankSubject(index: AxiomIndex, termNumber: number): boolean {
+  return (index.termFlags[termNumber] & BLANK_SUBJECT) !== 0;
+}
+
+function append(map: Map<number, number[]>, key: number, value: number): void {
   const list = map.get(key);
   if (list === undefined) map.set(key, [value]);
   else list.push(value);
 }
 
+/** The flags a predicate IRI can give its subject, worked out once per distinct predicate. */
+interface PredicateKind {
+  isType: boolean;
+  isStructurePredicate: boolean;
+  isFirst: boolean;
+  isRest: boolean;
+}
+
 /** First pass: finds axiom structures, list cells and blank subjects in all statements. */
-export function indexAxioms(statements: readonly Statement[]): AxiomIndex {
-  const index: AxiomIndex = {
-    structures: new Set(),
-    allDisjointClasses: new Set(),
-    listFirst: new Map(),
-    listRest: new Map(),
-    blankSubjects: new Set(),
-  };
-  for (let position = 0; position < statements.length; position++) {
-    const { subject, predicate, object } = statements[position];
-    const blank = isBlank(subject);
-    if (blank) index.blankSubjects.add(subject);
-    if (predicate === RDF_TYPE && typeof object === 'string' && AXIOM_TYPES.has(object)) {
-      index.structures.add(subject);
-      if (object === OWL_ALL_DISJOINT_CLASSES) index.allDisjointClasses.add(subject);
-    } else if (STRUCTURE_PREDICATES.has(predicate) && blank) {
-      index.structures.add(subject);
+export function indexAxioms(table: StatementTable): AxiomIndex {
+  const { terms, subjects, objects, predicates } = table;
+  const index: AxiomIndex = { termFlags: new Uint8Array(terms.termCount), listFirst: new Map(), listRest: new Map() };
+  const kinds: PredicateKind[] = table.predicateIris.map((iri) => ({
+    isType: iri === RDF_TYPE,
+    isStructurePredicate: STRUCTURE_PREDICATES.has(iri),
+    isFirst: iri === RDF_FIRST,
+    isRest: iri === RDF_REST,
+  }));
+  const axiomTypes = new Map<number, boolean>();
+  for (const type of AXIOM_TYPES) {
+    const termNumber = terms.numberOf(type);
+    if (termNumber >= 0) axiomTypes.set(termNumber, type === OWL_ALL_DISJOINT_CLASSES);
+  }
+  const blankTerms = new Uint8Array(terms.termCount);
+  for (let termNumber = 0; termNumber < blankTerms.length; termNumber++) {
+    if (isBlank(terms.text(termNumber))) blankTerms[termNumber] = 1;
+  }
+  for (let row = 0; row < subjects.length; row++) {
+    const subject = subjects[row];
+    const object = objects[row];
+    const kind = kinds[predicates[row]];
+    const blank = blankTerms[subject] === 1;
+    if (blank) index.termFlags[subject] |= BLANK_SUBJECT;
+    const allDisjoint = kind.isType && object !== LITERAL_OBJECT ? axiomTypes.get(object) : undefined;
+    if (allDisjoint !== undefined) {
+      index.termFlags[subject] |= STRUCTURE;
+      if (allDisjoint) index.termFlags[subject] |= ALL_DISJOINT_CLASSES;
+    } else if (kind.isStructurePredicate && blank) {
+      index.termFlags[subject] |= STRUCTURE;
     }
-    if (predicate === RDF_FIRST) append(index.listFirst, subject, position);
-    else if (predicate === RDF_REST) append(index.listRest, subject, position);
+    if (kind.isFirst) append(index.listFirst, subject, row);
+    else if (kind.isRest) append(index.listRest, subject, row);
   }
   return index;
 }
 
-/** A walked list: its members in order, or why it could not be read and at which statement. */
-export type ListWalk = { members: string[] } | { problem: string; statement: number };
+/** A walked list: its members' term numbers in order, or why it could not be read and at which row. */
+export type ListWalk = { members: number[] } | { problem: string; statement: number };
 
 /**
- * The members of the RDF list starting at `head`, walked iteratively. A list that loops back on
- * itself, has a cell without exactly one rdf:first and one rdf:rest, a literal rest or a literal
+ * The members of the RDF list starting at term `head`, walked iteratively. A list that loops back
+ * on itself, has a cell without exactly one rdf:first and one rdf:rest, a literal rest or a literal
  * member is reported as a problem instead.
  */
-export function walkList(head: string, index: AxiomIndex, statements: readonly Statement[], origin: number): ListWalk {
-  const members: string[] = [];
-  const seen = new Set<string>();
+export function walkList(head: number, index: AxiomIndex, table: StatementTable, origin: number): ListWalk {
+  const { terms, objects } = table;
+  const nil = terms.numberOf(RDF_NIL);
+  const members: number[] = [];
+  const seen = new Set<number>();
   let cell = head;
   let cellStatement = origin;
-  while (cell !== RDF_NIL) {
-    if (seen.has(cell)) return { problem: `the list loops back to ${cell}`, statement: cellStatement };
+  while (cell !== nil) {
+    const cellText = terms.text(cell);
+    if (seen.has(cell)) return { problem: `the list loops back to ${cellText}`, statement: cellStatement };
     seen.add(cell);
     const firsts = index.listFirst.get(cell);
     const rests = index.listRest.get(cell);
     if (firsts === undefined || rests === undefined) {
       const missing = firsts === undefined ? 'rdf:first' : 'rdf:rest';
-      return { problem: `list cell ${cell} has no ${missing}`, statement: cellStatement };
+      return { problem: `list cell ${cellText} has no ${missing}`, statement: cellStatement };
     }
     if (firsts.length > 1 || rests.length > 1) {
-      return { problem: `list cell ${cell} has more than one rdf:first or rdf:rest`, statement: firsts[1] ?? rests[1] };
+      return { problem: `list cell ${cellText} has more than one rdf:first or rdf:rest`, statement: firsts[1] ?? rests[1] };
     }
-    const member = statements[firsts[0]].object;
-    if (typeof member !== 'string') return { problem: `list cell ${cell} has a literal member`, statement: firsts[0] };
+    const member = objects[firsts[0]];
+    if (member === LITERAL_OBJECT) return { problem: `list cell ${cellText} has a literal member`, statement: firsts[0] };
     members.push(member);
-    const rest = statements[rests[0]].object;
-    if (typeof rest !== 'string') return { problem: `list cell ${cell} has a literal rdf:rest`, statement: rests[0] };
+    const rest = objects[rests[0]];
+    if (rest === LITERAL_OBJECT) return { problem: `list cell ${cellText} has a literal rdf:rest`, statement: rests[0] };
     cell = rest;
     cellStatement = rests[0];
   }

@@ -3,7 +3,8 @@ import { createHash } from 'node:crypto';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type * as RDF from '@rdfjs/types';
-import type { InputError, LoadedSource, RdfFormat, Statement } from './statement.js';
+import { Literal as N3Literal } from 'n3';
+import type { InputError, Literal, LoadedSource, RdfFormat, Statement } from './statement.js';
 import { createLexer, parseWithTokens, type N3Token } from './n3-tokens.js';
 import { TermPositions } from './term-positions.js';
 import { formatName, toInputError } from './syntax-error.js';
@@ -95,24 +96,28 @@ export function defaultBaseIri(file: string): string {
 
 /** Turns one n3 quad into a Statement, or into an InputError when it holds a term isapart cannot keep. */
 function addStatement(source: LoadedSource, quad: RDF.Quad, positions: TermPositions): void {
-  const place = positions.placeOf(quad.subject);
-  if (quad.subject.termType === 'Quad' || quad.object.termType === 'Quad') {
-    source.errors.push(tripleTermError(source, place.line, place.column));
+  const { subject, object } = quad;
+  const line = positions.lineOf(subject);
+  const column = positions.columnOf(subject);
+  if (subject.termType === 'Quad' || object.termType === 'Quad') {
+    source.errors.push(tripleTermError(source, line, column));
     return;
   }
-  const object = quad.object;
   const statement: Statement = {
-    subject: termText(quad.subject),
+    subject: termText(subject),
     predicate: quad.predicate.value,
-    object:
-      object.termType === 'Literal'
-        ? { value: object.value, datatype: object.datatype.value, language: object.language }
-        : termText(object),
+    object: object.termType === 'Literal' ? literalOf(object) : termText(object),
     graph: quad.graph.termType === 'DefaultGraph' ? '' : termText(quad.graph),
-    position: { file: source.file, line: place.line, column: place.column },
-    objectLine: positions.placeOf(object).line,
+    position: { file: source.file, line, column },
+    objectLine: positions.lineOf(object),
   };
   source.statements.push(statement);
+}
+
+/** A literal's parts; n3's `datatypeString` gives the datatype IRI without making a term for it. */
+function literalOf(literal: RDF.Literal): Literal {
+  const datatype = literal instanceof N3Literal ? literal.datatypeString : literal.datatype.value;
+  return { value: literal.value, datatype, language: literal.language };
 }
 
 /** An IRI as itself, a blank node as `_:label`. */

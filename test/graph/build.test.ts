@@ -297,6 +297,46 @@ describe('names and first statements', () => {
     expect(graph.firstStatement(graph.idOf(N + 'Wheel'))).toBe(asObject);
     expect(graph.firstStatement(-1)).toBeUndefined();
   });
+
+  it('gives a statement read before the term became a node as its first statement', () => {
+    const label = statement(N + 'Bogie', RDFS_LABEL, literal('Bogie'), { line: 1 });
+    const mention = statement(N + 'Depot', N + 'operatedBy', N + 'Assembly', { line: 2 });
+    const kind = statement(N + 'Bogie', RDFS_SUBCLASS_OF, N + 'Assembly', { line: 3 });
+    const graph = buildHierarchyGraph([source([label, mention, kind])], testRoleMap(), noScope);
+    expect(graph.firstStatement(graph.idOf(N + 'Bogie'))).toBe(label);
+    // Assembly is never a subject, so its first statement as object counts, though it was no node then.
+    expect(graph.firstStatement(graph.idOf(N + 'Assembly'))).toBe(mention);
+    expect(graph.label(graph.idOf(N + 'Bogie'))).toBe('Bogie');
+  });
+
+  it('numbers nodes in the order they become nodes, and gives terms that never do no id', () => {
+    const statements = [
+      statement(N + 'Depot', N + 'operatedBy', N + 'Yard', { line: 1 }),
+      statement(N + 'Yard', RDFS_SUBCLASS_OF, N + 'Site', { line: 2 }),
+      statement(N + 'Depot', RDFS_SUBCLASS_OF, N + 'Site', { line: 3 }),
+      statement(N + 'Crew', N + 'operatedBy', N + 'Depot', { line: 4 }),
+    ];
+    const graph = buildHierarchyGraph([source(statements)], testRoleMap(), noScope);
+    expect(idsOf(graph, 'Yard', 'Site', 'Depot')).toEqual([0, 1, 2]);
+    expect(graph.idOf(N + 'Crew')).toBe(-1);
+    expect(graph.nodeCount).toBe(3);
+    expect(graph.term(2)).toBe(N + 'Depot');
+  });
+
+  it('gives empty neighbour lists to a node without edges of a role and to an unknown id', () => {
+    const statements = [
+      statement(N + 'Axle', RDFS_SUBCLASS_OF, N + 'Part', { line: 1 }),
+      statement(N + 'Wheel', RDFS_SUBCLASS_OF, N + 'Part', { line: 2 }),
+    ];
+    const graph = buildHierarchyGraph([source(statements)], testRoleMap(), noScope);
+    const [axle, part] = idsOf(graph, 'Axle', 'Part');
+    expect(Array.from(graph.successors('subclass-of', axle))).toEqual([part]);
+    expect(Array.from(graph.predecessors('subclass-of', part))).toEqual([0, 2]);
+    expect(graph.successors('subclass-of', part).length).toBe(0);
+    expect(graph.predecessors('part-of', axle).length).toBe(0);
+    expect(graph.successors('subclass-of', 99).length).toBe(0);
+    expect(graph.predecessors('subclass-of', -2).length).toBe(0);
+  });
 });
 
 describe('a published vocabulary: the RDFS vocabulary in Turtle', () => {
