@@ -232,18 +232,26 @@ export function loadRuleDir(dir: string): { rules: RuleDefinition[]; errors: Inp
   let names: string[];
   try {
     if (!statSync(dir).isDirectory()) {
-      return { rules: [], errors: [{ file: dir, line: 1, column: 1, message: 'not a folder of rule files', hint: 'rule-dirs lists folders of *.yaml rule files' }] };
+      return { rules: [], errors: [{ file: dir, line: 0, column: 0, message: 'not a folder of rule files', hint: 'rule-dirs lists folders of *.yaml rule files' }] };
     }
     names = readdirSync(dir).filter((name) => name.endsWith('.yaml') || name.endsWith('.yml')).sort();
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    return { rules: [], errors: [{ file: dir, line: 1, column: 1, message: `cannot read the rule folder: ${message}`, hint: 'check the path in rule-dirs' }] };
+    return { rules: [], errors: [{ file: dir, line: 0, column: 0, message: `cannot read the rule folder: ${message}`, hint: 'check the path in rule-dirs' }] };
   }
   const rules: RuleDefinition[] = [];
   const errors: InputError[] = [];
   for (const name of names) {
     const file = join(dir, name);
-    const { rule, errors: fileErrors } = parseRuleFile(readFileSync(file, 'utf8'), file);
+    let text: string;
+    try {
+      text = readFileSync(file, 'utf8');
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      errors.push({ file, line: 0, column: 0, message: `cannot read the rule file: ${message}`, hint: 'check that the file is readable' });
+      continue;
+    }
+    const { rule, errors: fileErrors } = parseRuleFile(text, file);
     errors.push(...fileErrors);
     if (rule !== undefined) rules.push(rule);
   }

@@ -10,14 +10,37 @@ export const UNUSED_ALLOW_RULE: RuleDefinition = Object.freeze({
   id: 'unused-allow',
   level: 'note',
   summary: 'An allow comment or allow entry suppresses no finding.',
-  description:
-    'An `# isapart-allow RULE-ID: reason` comment, or an `allow:` entry in isapart.yaml, that matched no finding of ' +
-    'the rule it names. The finding it was written for has gone (the hierarchy was fixed) or the comment stands on ' +
-    'the wrong line or names the wrong rule. Remove it, or move it to the end of the line of a statement the finding ' +
-    'cites (or alone on the line above that statement), so that allowances do not outlive their reason.',
+  description: [
+    'Flags an `# isapart-allow RULE-ID: reason` comment, or an `allow:` entry in isapart.yaml, that',
+    'matched no finding of the rule it names.',
+    '',
+    'Why it matters: the finding it was written for has gone (the hierarchy was fixed), or the comment',
+    'stands on the wrong line, so it would silently allow a different finding later.',
+    '',
+    'How to fix: remove it, or move it to the end of the line of a statement the finding cites (or',
+    'alone on the line above that statement). Common practice: allowances should not outlive their reason.',
+    '',
+  ].join('\n'),
   match: [],
   report: { focus: '?rule', nodes: ['?rule'], unordered: [], message: '{rule} is allowed here but nothing is reported' },
-  examples: { flagged: '', clean: '' },
+  examples: {
+    flagged: [
+      '@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .',
+      '@prefix nv: <https://data.northvale-rail.example/def/> .',
+      '',
+      'nv:Component rdfs:subClassOf nv:Asset .',
+      'nv:Bogie rdfs:subClassOf nv:Component .  # isapart-allow orphan-class: Bogie had no superclass once',
+      '',
+    ].join('\n'),
+    clean: [
+      '@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .',
+      '@prefix nv: <https://data.northvale-rail.example/def/> .',
+      '',
+      'nv:Component rdfs:subClassOf nv:Asset .',
+      'nv:Bogie rdfs:subClassOf nv:Component .',
+      '',
+    ].join('\n'),
+  },
   file: 'built-in',
 }) as RuleDefinition;
 

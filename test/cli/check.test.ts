@@ -159,3 +159,14 @@ describe('the isapart binary', () => {
     expect(execFileSync(process.execPath, [path.join(root, 'bin/isapart.js'), '--version'], { encoding: 'utf8' }).trim()).toBe(version);
   });
 });
+
+describe('the unused-allow rule', () => {
+  it('flags its flagged example and not its clean one, like every rule', async () => {
+    const { UNUSED_ALLOW_RULE } = await import('../../src/engine/suppress.js');
+    const root = 'https://data.northvale-rail.example/def/Asset';
+    const flagged = await run(folderWith({ 'a.ttl': UNUSED_ALLOW_RULE.examples.flagged }), ['check', 'a.ttl', '--root', root, '-f', 'json']);
+    const clean = await run(folderWith({ 'a.ttl': UNUSED_ALLOW_RULE.examples.clean }), ['check', 'a.ttl', '--root', root, '-f', 'json']);
+    expect(JSON.parse(flagged.out).findings.map((f: { ruleId: string }) => f.ruleId)).toEqual(['unused-allow']);
+    expect(JSON.parse(clean.out).findings).toEqual([]);
+  });
+});

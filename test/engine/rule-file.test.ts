@@ -1,5 +1,5 @@
 // Rule files: validation errors with line, column and hint; rule folders; the registry.
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -187,6 +187,17 @@ describe('rule folders and the registry', () => {
     const registry = createRegistry([rules[1], rules[0]]);
     expect([...registry.keys()]).toEqual(['kind-and-part', 'second-rule']);
     expect(() => (registry as Map<string, unknown>).set('x', rules[0])).toThrow(/frozen/);
+  });
+
+  it('reports a rule file it cannot read, and still reads the others', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'isapart-rules-'));
+    writeFileSync(join(dir, 'a.yaml'), ruleText({ id: 'first-rule' }));
+    mkdirSync(join(dir, 'b.yaml'));
+    const { rules, errors } = loadRuleDir(dir);
+    expect(rules.map((rule) => rule.id)).toEqual(['first-rule']);
+    expect(errors).toHaveLength(1);
+    expect(errors[0]).toMatchObject({ file: join(dir, 'b.yaml'), line: 0 });
+    expect(errors[0].message).toContain('cannot read the rule file');
   });
 
   it('reports a missing rule folder', () => {
