@@ -1,5 +1,6 @@
 // Telling which RDF syntax a source is written in: by file extension, else by sniffing its first lines.
 import type { RdfFormat } from './statement.js';
+import { firstErrorLine } from './first-error-line.js';
 
 /** The file extensions isapart reads, each also accepted with a trailing `.gz`. */
 export const RDF_EXTENSIONS: readonly string[] = Object.freeze(['.ttl', '.trig', '.nt', '.nq']);
@@ -11,25 +12,77 @@ const FORMAT_OF_EXTENSION: Readonly<Record<string, RdfFormat>> = Object.freeze({
   '.nq': 'n-quads',
 });
 
+/** An RDF syntax that isapart recognises but does not read. */
+export type UnreadSyntax = 'RDF/XML' | 'JSON-LD';
+
+const UNREAD_SYNTAX_OF_EXTENSION: Readonly<Record<string, UnreadSyntax>> = Object.freeze({
+  '.rdf': 'RDF/XML',
+  '.owl': 'RDF/XML',
+  '.xml': 'RDF/XML',
+  '.jsonld': 'JSON-LD',
+});
+
+/** An unread syntax and what gave it away, as a clause such as `its name ends in .owl`. */
+export interface UnreadSyntaxSign {
+  syntax: UnreadSyntax;
+  sign: string;
+}
+
 /** How many characters of a source's start are enough to sniff its syntax. */
 export const SNIFF_LENGTH = 64 * 1024;
 
 /** The format named by a file's extension (`.ttl`, `.ttl.gz`, ...), or undefined for any other name. */
 export function formatFromExtension(fileName: string): RdfFormat | undefined {
-  const lowerName = fileName.toLowerCase();
-  const withoutGzip = lowerName.endsWith('.gz') ? lowerName.slice(0, -3) : lowerName;
-  const dot = withoutGzip.lastIndexOf('.');
-  if (dot < 0 || withoutGzip.lastIndexOf('/') > dot) return undefined;
-  return FORMAT_OF_EXTENSION[withoutGzip.slice(dot)];
+  return FORMAT_OF_EXTENSION[extensionOf(fileName)];
 }
 
 /**
  * The format of a source: by its extension, or for `-` and unknown extensions by its content.
- * Returns undefined when the content does not look like any RDF syntax isapart reads.
+ * Returns undefined when the content does not look like any RDF syntax isapart reads, and for the
+ * extensions of syntaxes it does not read (see `detectUnreadSyntax`).
  */
 export function detectFormat(fileName: string, head: string): RdfFormat | undefined {
-  return formatFromExtension(fileName) ?? sniffFormat(head);
+  const extension = extensionOf(fileName);
+  if (UNREAD_SYNTAX_OF_EXTENSION[extension] !== undefined) return undefined;
+  return FORMAT_OF_EXTENSION[extension] ?? sniffFormat(head);
 }
+
+/**
+ * Whether a source is in RDF/XML or JSON-LD, by its extension (`.rdf`, `.owl`, `.xml`, `.jsonld`,
+ * each also with `.gz`) or, when its extension is none of isapart's, by how its text starts.
+ */
+export function detectUnreadSyntax(fileName: string, head: string): UnreadSyntaxSign | undefined {
+  const extension = extensionOf(fileName);
+  const byExtension = UNREAD_SYNTAX_OF_EXTENSION[extension];
+  if (byExtension !== undefined) {
+    const gzip = fileName.toLowerCase().endsWith('.gz') ? '.gz' : '';
+    return { syntax: byExtension, sign: `its name ends in ${extension}${gzip}` };
+  }
+  if (FORMAT_OF_EXTENSION[extension] !== undefined) return undefined;
+  const start = head.trimStart();
+  const xmlStart = XML_START.exec(start);
+  if (xmlStart) return { syntax: 'RDF/XML', sign: `it starts as XML does, with ${xmlStart[0].split(/\s/)[0]}` };
+  const keyword = JSON_START.test(start) ? JSON_LD_KEYWORD.exec(head) : null;
+  if (keyword) return { syntax: 'JSON-LD', sign: `it is JSON with the key "${keyword[1]}"` };
+  return undefined;
+}
+
+/** The lower-case extension of a file name without a trailing `.gz` (`.ttl` for `A.TTL.gz`), or ''. */
+function extensionOf(fileName: string): string {
+  const lowerName = fileName.toLowerCase();
+  const withoutGzip = lowerName.endsWith('.gz') ? lowerName.slice(0, -3) : lowerName;
+  const dot = withoutGzip.lastIndexOf('.');
+  if (dot < 0 || withoutGzip.lastIndexOf('/') > dot) return '';
+  return withoutGzip.slice(dot);
+}
+
+// The start of an XML document: a declaration, a doctype, a comment, rdf:RDF, or an element with attributes.
+// None of these is an IRI, since IRIs hold no spaces (an IRI <rdf:RDF> is not taken for the element).
+const XML_START = /^(?:<\?xml[\s?]|<!DOCTYPE\s|<!--\s|<rdf:RDF\s|<[A-Za-z_][\w.-]*(?::[\w.-]+)?\s+[\w.:-]+\s*=\s*["'])/;
+// A JSON object or array of objects whose first key is a string, which no Turtle or TriG statement starts with.
+const JSON_START = /^(?:\{\s*"|\[\s*\{\s*")/;
+// JSON-LD's keywords that mark a JSON document as linked data (JSON-LD 1.1, section 1.7; from memory).
+const JSON_LD_KEYWORD = /"(@context|@id|@graph|@type)"\s*:/;
 
 // One term of a line-based syntax: an IRI, a blank node label, or a literal with its tag or datatype.
 const IRI_CHARACTERS = String.raw`(?:[^<>"{}|^\x60\\\s]|\\u[0-9A-Fa-f]{4}|\\U[0-9A-Fa-f]{8})*`;
@@ -53,28 +106,53 @@ const QUOTED_STRING_OF_TURTLE = /"{3}|'/;
 // A statement that opens with two IRIs (relative ones too): its object may be in Turtle's own forms.
 const STATEMENT_OF_IRIS = new RegExp(`^\\s*<${IRI_CHARACTERS}>\\s*<${IRI_CHARACTERS}>`, 'm');
 
-/** Guesses the syntax of a source from its first characters; undefined when it is none of ours. */
+/**
+ * Guesses the syntax of a source from its first complete lines; undefined when it is none of ours.
+ * When only some lines have the shape of N-Triples or N-Quads lines (one bad line in a dump, or
+ * Turtle written partly line by line), the syntax whose parser reads further into them wins, and on
+ * a tie the shape most lines have, so a bad line is reported by the parser of the file's own syntax.
+ */
 export function sniffFormat(head: string): RdfFormat | undefined {
-  const lines = completeLines(head)
-    .map((line) => line.trim())
-    .filter((line) => line !== '' && !line.startsWith('#'));
+  const start = head.trimStart();
+  // XML and JSON hold characters the signs below would take for Turtle's.
+  if (XML_START.test(start) || JSON_START.test(start)) return undefined;
+  const sniffedLines = completeLines(head);
+  const lines = sniffedLines.map((line) => line.trim()).filter((line) => line !== '' && !line.startsWith('#'));
   // An empty document (or one of comments only) is valid in every syntax; Turtle reads them all.
   if (lines.length === 0) return 'turtle';
+  let tripleLines = 0;
+  let quadLines = 0;
+  for (const line of lines) {
+    if (TRIPLE_LINE.test(line)) tripleLines++;
+    else if (QUAD_LINE.test(line)) quadLines++;
+  }
+  const lineShaped = tripleLines + quadLines;
+  // A quad line is N-Quads only: neither Turtle nor TriG has a statement of four terms.
+  const lineFormat: RdfFormat = quadLines > 0 ? 'n-quads' : 'n-triples';
+  if (lineShaped === lines.length) return lineFormat;
+  const mostlyLineShaped = lineShaped * 2 >= lines.length;
+  const bySigns = formatBySigns(lines, head);
+  if (lineShaped === 0) return bySigns;
+  if (bySigns === undefined) return mostlyLineShaped ? lineFormat : undefined;
+  const text = sniffedLines.join('\n');
+  const lineFormatReach = firstErrorLine(text, lineFormat);
+  const bySignsReach = firstErrorLine(text, bySigns);
+  if (lineFormatReach !== bySignsReach) return lineFormatReach > bySignsReach ? lineFormat : bySigns;
+  return mostlyLineShaped ? lineFormat : bySigns;
+}
+
+/** TriG when a graph block shows, Turtle when a sign of Turtle does, else undefined. */
+function formatBySigns(lines: string[], head: string): RdfFormat | undefined {
   const scrubbed = scrubTerms(lines.join('\n'));
   if (scrubbed.includes('{')) return 'trig';
-  if (lines.every((line) => TRIPLE_LINE.test(line))) return 'n-triples';
-  if (lines.every((line) => TRIPLE_LINE.test(line) || QUAD_LINE.test(line))) return 'n-quads';
-  if (
+  const turtle =
     TURTLE_DIRECTIVE.test(scrubbed) ||
     TURTLE_PUNCTUATION.test(scrubbed) ||
     PREFIXED_NAME.test(scrubbed) ||
     ABBREVIATED_TYPE.test(scrubbed) ||
     QUOTED_STRING_OF_TURTLE.test(head) ||
-    STATEMENT_OF_IRIS.test(head)
-  ) {
-    return 'turtle';
-  }
-  return undefined;
+    STATEMENT_OF_IRIS.test(head);
+  return turtle ? 'turtle' : undefined;
 }
 
 /** The lines of a head, leaving out a last line cut off by the sniff limit. */

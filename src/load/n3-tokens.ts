@@ -2,6 +2,15 @@
 import type { EventEmitter } from 'node:events';
 import { Lexer, Parser, type Token, type TokenCallback } from 'n3';
 import type * as RDF from '@rdfjs/types';
+import type { RdfFormat } from './statement.js';
+
+/** The name n3's parser takes for each syntax. */
+export const N3_FORMAT_NAME: Readonly<Record<RdfFormat, string>> = Object.freeze({
+  turtle: 'Turtle',
+  trig: 'TriG',
+  'n-triples': 'N-Triples',
+  'n-quads': 'N-Quads',
+});
 
 /**
  * A lexer token as n3 2.x hands it to `onToken`/`onTokenEnd`: 1-based `line`, 0-based end-exclusive

@@ -1,11 +1,11 @@
 // Parsing one source text with n3 into statements that know the line and column of their subject.
 import { createHash } from 'node:crypto';
-import { resolve } from 'node:path';
+import { relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type * as RDF from '@rdfjs/types';
 import { Literal as N3Literal } from 'n3';
 import type { InputError, Literal, LoadedSource, RdfFormat, Statement } from './statement.js';
-import { createLexer, parseWithTokens, type N3Token } from './n3-tokens.js';
+import { createLexer, N3_FORMAT_NAME, parseWithTokens, type N3Token } from './n3-tokens.js';
 import { TermPositions } from './term-positions.js';
 import { formatName, toInputError } from './syntax-error.js';
 import { readAllowComment } from './allow-comments.js';
@@ -14,17 +14,12 @@ import { readAllowComment } from './allow-comments.js';
 export interface ParseOptions {
   /** The IRI relative IRIs resolve against; default the file's `file://` URL. */
   baseIri?: string;
+  /** The folder a relative file name starts from; default the process's working folder. */
+  cwd?: string;
 }
 
 /** The file name the loader gives standard input. */
 export const STDIN_FILE = '<stdin>';
-
-const N3_FORMAT_NAME: Readonly<Record<RdfFormat, string>> = {
-  turtle: 'Turtle',
-  trig: 'TriG',
-  'n-triples': 'N-Triples',
-  'n-quads': 'N-Quads',
-};
 
 /**
  * Parses one source synchronously. On a syntax error it keeps every statement read before it and
@@ -33,7 +28,8 @@ const N3_FORMAT_NAME: Readonly<Record<RdfFormat, string>> = {
 export function parseSource(text: string, file: string, format: RdfFormat, options: ParseOptions = {}): LoadedSource {
   const source: LoadedSource = { file, format, statements: [], errors: [], allowComments: [], prefixes: {} };
   const input = text.startsWith('\ufeff') ? text.slice(1) : text;
-  const labelPrefix = blankNodeLabelPrefix(file);
+  const cwd = options.cwd ?? process.cwd();
+  const labelPrefix = blankNodeLabelPrefix(file, cwd);
   const positions = new TermPositions(labelPrefix);
   const pendingQuads: RDF.Quad[] = [];
   let lastCodeLine = 0;
@@ -54,7 +50,7 @@ export function parseSource(text: string, file: string, format: RdfFormat, optio
     input,
     {
       format: N3_FORMAT_NAME[format],
-      baseIRI: options.baseIri ?? defaultBaseIri(file),
+      baseIRI: options.baseIri ?? defaultBaseIri(file, cwd),
       blankNodePrefix: labelPrefix,
       factory: positions.factory,
       lexer: createLexer(format === 'n-triples' || format === 'n-quads'),
@@ -83,15 +79,25 @@ export function parseSource(text: string, file: string, format: RdfFormat, optio
   return source;
 }
 
-/** The blank node label prefix of a file: `b`, 8 hex digits of the SHA-1 of its name, and `_`. */
-export function blankNodeLabelPrefix(file: string): string {
-  return `b${createHash('sha1').update(file).digest('hex').slice(0, 8)}_`;
+/**
+ * The blank node label prefix of a file: `b`, 8 hex digits of the SHA-1 of its path relative to
+ * `cwd` (with `/` separators, so `a.ttl`, `./a.ttl` and `sub/../a.ttl` agree), and `_`.
+ * Standard input has a fixed prefix.
+ */
+export function blankNodeLabelPrefix(file: string, cwd: string = process.cwd()): string {
+  const name = file === STDIN_FILE || file === '-' ? STDIN_FILE : normalisedPath(file, cwd);
+  return `b${createHash('sha1').update(name).digest('hex').slice(0, 8)}_`;
 }
 
 /** The base IRI of a file when none is given: its absolute `file://` URL (`file:///dev/stdin` for stdin). */
-export function defaultBaseIri(file: string): string {
+export function defaultBaseIri(file: string, cwd: string = process.cwd()): string {
   if (file === STDIN_FILE || file === '-') return 'file:///dev/stdin';
-  return pathToFileURL(resolve(file)).href;
+  return pathToFileURL(resolve(cwd, file)).href;
+}
+
+/** A file's path relative to `cwd`, `/`-separated. */
+function normalisedPath(file: string, cwd: string): string {
+  return relative(cwd, resolve(cwd, file)).split(sep).join('/');
 }
 
 /** Turns one n3 quad into a Statement, or into an InputError when it holds a term isapart cannot keep. */

@@ -3,7 +3,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { InputError, LoadResult, RdfFormat } from './statement.js';
-import { detectFormat, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
+import { detectFormat, detectUnreadSyntax, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
 import { parseSource, STDIN_FILE } from './parse.js';
 import { toSourceText } from './source-text.js';
 import { joinShown, listRdfFiles } from './walk.js';
@@ -16,8 +16,9 @@ export interface LoadOptions {
   stdin?: NodeJS.ReadableStream;
 }
 
-/** A LoadResult that also names the files inside given folders that were left out for their extension. */
+/** A LoadResult that also names what inside given folders was left out of the run. */
 export interface LoadResultWithSkipped extends LoadResult {
+  /** Files left out for their extension, and node_modules and dot-folders as `folder/.name/`, named as the user would. */
   skippedFiles: string[];
 }
 
@@ -41,14 +42,14 @@ export async function loadSources(paths: string[], options: LoadOptions = {}): P
     if (path === '-') {
       if (seen.has(STDIN_FILE)) continue;
       seen.add(STDIN_FILE);
-      await loadStdin(options.stdin ?? process.stdin, result);
+      await loadStdin({ stdin: options.stdin ?? process.stdin, cwd }, result);
       continue;
     }
     for (const file of await filesOfPath(path, cwd, result)) {
       // A file named twice, or inside a folder also given, is read once.
       if (seen.has(file.absolutePath)) continue;
       seen.add(file.absolutePath);
-      await loadFile(file, result);
+      await loadFile({ ...file, cwd }, result);
     }
   }
   return result;
@@ -84,7 +85,7 @@ async function filesOfPath(path: string, cwd: string, result: LoadResultWithSkip
 }
 
 /** Reads, decodes and parses one file into the result. */
-async function loadFile(file: FileToRead, result: LoadResultWithSkipped): Promise<void> {
+async function loadFile(file: FileToRead & { cwd: string }, result: LoadResultWithSkipped): Promise<void> {
   let bytes: Uint8Array;
   try {
     bytes = await readFile(file.absolutePath);
@@ -98,11 +99,12 @@ async function loadFile(file: FileToRead, result: LoadResultWithSkipped): Promis
     });
     return;
   }
-  await parseBytes({ bytes, file: file.shownAs, baseIri: pathToFileURL(file.absolutePath).href }, result);
+  await parseBytes({ bytes, file: file.shownAs, baseIri: pathToFileURL(file.absolutePath).href, cwd: file.cwd }, result);
 }
 
 /** Reads standard input to its end and parses it as the source `<stdin>`. */
-async function loadStdin(stdin: NodeJS.ReadableStream, result: LoadResultWithSkipped): Promise<void> {
+async function loadStdin(input: { stdin: NodeJS.ReadableStream; cwd: string }, result: LoadResultWithSkipped): Promise<void> {
+  const { stdin, cwd } = input;
   const chunks: Buffer[] = [];
   try {
     for await (const chunk of stdin) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : chunk);
@@ -116,12 +118,12 @@ async function loadStdin(stdin: NodeJS.ReadableStream, result: LoadResultWithSki
     });
     return;
   }
-  await parseBytes({ bytes: Buffer.concat(chunks), file: STDIN_FILE, baseIri: 'file:///dev/stdin' }, result);
+  await parseBytes({ bytes: Buffer.concat(chunks), file: STDIN_FILE, baseIri: 'file:///dev/stdin', cwd }, result);
 }
 
 /** Decodes a source's bytes, works out its format and parses it into the result. */
 async function parseBytes(
-  source: { bytes: Uint8Array; file: string; baseIri: string },
+  source: { bytes: Uint8Array; file: string; baseIri: string; cwd: string },
   result: LoadResultWithSkipped,
 ): Promise<void> {
   const decoded = await toSourceText(source.bytes, source.file);
@@ -130,18 +132,42 @@ async function parseBytes(
     return;
   }
   const nameForFormat = source.file === STDIN_FILE ? '-' : source.file;
-  const format: RdfFormat | undefined = detectFormat(nameForFormat, decoded.text.slice(0, SNIFF_LENGTH));
+  const head = decoded.text.slice(0, SNIFF_LENGTH);
+  const format: RdfFormat | undefined = detectFormat(nameForFormat, head);
   if (format === undefined) {
-    result.errors.push({
-      file: source.file,
-      line: 0,
-      column: 0,
-      message: `The syntax of ${source.file} could not be told from its name or its content; it was not read.`,
-      hint: `name the file with one of the extensions ${EXTENSION_LIST} (or the same with .gz), or check that it holds Turtle, TriG, N-Triples or N-Quads`,
-    });
+    result.errors.push(unknownSyntaxError(source.file, head));
     return;
   }
-  result.sources.push(parseSource(decoded.text, source.file, format, { baseIri: source.baseIri }));
+  result.sources.push(parseSource(decoded.text, source.file, format, { baseIri: source.baseIri, cwd: source.cwd }));
+}
+
+/** The error for a source in a syntax isapart does not read, or whose syntax cannot be told at all. */
+function unknownSyntaxError(file: string, head: string): InputError {
+  const isStdin = file === STDIN_FILE;
+  const unread = detectUnreadSyntax(isStdin ? '-' : file, head);
+  if (unread !== undefined) {
+    const convert = 'convert it to Turtle or N-Triples first, with an RDF converter of your choice,';
+    return {
+      file,
+      line: 0,
+      column: 0,
+      message: `${unread.syntax} is not read by isapart: ${isStdin ? 'standard input' : file} was not read (${unread.sign}).`,
+      hint: isStdin
+        ? `${convert} and pipe the result in`
+        : `${convert} and lint the converted file; if it already holds Turtle, N-Triples, N-Quads or TriG, name it with one of the extensions ${EXTENSION_LIST}`,
+    };
+  }
+  return {
+    file,
+    line: 0,
+    column: 0,
+    message: isStdin
+      ? 'The syntax of standard input could not be told from its content; it was not read.'
+      : `The syntax of ${file} could not be told from its name or its content; it was not read.`,
+    hint: isStdin
+      ? `standard input has no name to tell its syntax by, only its first lines: check that what is piped in is Turtle, TriG, N-Triples or N-Quads, or save it to a file ending in ${EXTENSION_LIST} and lint that file`
+      : `name the file with one of the extensions ${EXTENSION_LIST} (or the same with .gz), or check that it holds Turtle, TriG, N-Triples or N-Quads`,
+  };
 }
 
 function missingPathError(path: string, error: unknown): InputError {

@@ -7,7 +7,10 @@ import { formatFromExtension } from './format.js';
 /** The RDF files found under a folder, as `/`-separated paths relative to it, and what could not be read. */
 export interface FolderListing {
   files: string[];
-  /** Files with other extensions, left out of the run, relative like `files`. */
+  /**
+   * What was left out of the run, relative like `files`: files with other extensions, and
+   * node_modules and dot-folders as the folder path with a trailing `/` (their contents unlisted).
+   */
   skippedFiles: string[];
   errors: InputError[];
 }
@@ -41,7 +44,10 @@ export async function listRdfFiles(folder: string, shownAs: string): Promise<Fol
         }
       }
       if (isFolder) {
-        if (entry.name === 'node_modules' || entry.name.startsWith('.')) continue;
+        if (entry.name === 'node_modules' || entry.name.startsWith('.')) {
+          listing.skippedFiles.push(`${relativePath}/`);
+          continue;
+        }
         const real = await realpath(absolutePath);
         // A link back up the tree would otherwise be walked forever.
         if (visitedFolders.has(real)) continue;

@@ -1,6 +1,7 @@
 // Allow comments, blank node labels and base IRIs as parseSource gives them.
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { parseSource } from '../../src/load/parse.js';
+import { blankNodeLabelPrefix, parseSource } from '../../src/load/parse.js';
 import { readAllowComment } from '../../src/load/allow-comments.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
@@ -90,6 +91,38 @@ describe('blank node labels', () => {
     const anonymous = first.statements[1].subject;
     expect(anonymous).not.toBe(labelA);
     expect(first.statements[2].object).toBe(labelA);
+  });
+});
+
+describe('blank node labels by normalised path', () => {
+  const text = `@prefix nv: <${NV}> .\n_:x nv:partOf nv:Train .\n`;
+  const cwd = '/srv/northvale/graph';
+  const labelOf = (file: string, options: { cwd?: string } = { cwd }) => parseSource(text, file, 'turtle', options).statements[0].subject;
+
+  it('are the same for blank.ttl, ./blank.ttl, sub/../blank.ttl and the absolute path', () => {
+    const label = labelOf('blank.ttl');
+    expect(labelOf('./blank.ttl')).toBe(label);
+    expect(labelOf('sub/../blank.ttl')).toBe(label);
+    expect(labelOf(`${cwd}/blank.ttl`)).toBe(label);
+    // The prefix is the SHA-1 of the path relative to cwd (node:crypto is the reference).
+    expect(label).toBe(`_:b${createHash('sha1').update('blank.ttl').digest('hex').slice(0, 8)}_x`);
+    expect(blankNodeLabelPrefix('./blank.ttl', cwd)).toBe(label.slice(2, -1));
+  });
+
+  it('still differ between two different files, also under another folder of the same name', () => {
+    expect(labelOf('other.ttl')).not.toBe(labelOf('blank.ttl'));
+    expect(labelOf('sub/blank.ttl')).not.toBe(labelOf('blank.ttl'));
+  });
+
+  it('hash a file outside cwd by its relative path with ../', () => {
+    const expected = `_:b${createHash('sha1').update('../depots/blank.ttl').digest('hex').slice(0, 8)}_x`;
+    expect(labelOf('/srv/northvale/depots/blank.ttl')).toBe(expected);
+    expect(labelOf('../depots/./blank.ttl')).toBe(expected);
+  });
+
+  it('keep one fixed prefix for standard input, whatever the cwd', () => {
+    expect(labelOf('<stdin>', { cwd: '/srv/a' })).toBe(labelOf('<stdin>', { cwd: '/srv/b' }));
+    expect(labelOf('<stdin>')).toBe(`_:b${createHash('sha1').update('<stdin>').digest('hex').slice(0, 8)}_x`);
   });
 });
 

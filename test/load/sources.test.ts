@@ -5,12 +5,13 @@ import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { pathToFileURL } from 'node:url';
 import { gzipSync } from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { loadSources } from '../../src/load/sources.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
 const ROLLING_STOCK = `@prefix nv: <${NV}> .\nnv:Pantograph nv:partOf nv:Locomotive .\nnv:Locomotive a nv:RollingStock .\n`;
 const INFRASTRUCTURE = `<${NV}Sleeper> <${NV}partOf> <${NV}Track> .\n`;
+const BLANK_NODES = `@prefix nv: <${NV}> .\n_:coupler nv:partOf nv:Car .\n[ a nv:Buffer ] nv:partOf _:coupler .\n`;
 const FLEET_TRIG = `@prefix nv: <${NV}> .\nnv:fleet-2024 { nv:Car nv:partOf nv:Train . }\n`;
 
 let root: string;
@@ -37,6 +38,13 @@ beforeAll(() => {
   write('export.data', ROLLING_STOCK);
   write('notes.txt', 'Northvale Rail asset graph, see the wiki.\n');
   write('relative.ttl', '<Car> <partOf> <Train> .\n');
+  write('nested/.git/objects/pack.ttl', ROLLING_STOCK);
+  write('nested/depots/north.ttl', INFRASTRUCTURE);
+  write('nested/depots/.backup/north.ttl', INFRASTRUCTURE);
+  write('nested/depots/node_modules/vocab.ttl', INFRASTRUCTURE);
+  write('only-hidden/.snapshots/north.ttl', INFRASTRUCTURE);
+  write('blank.ttl', BLANK_NODES);
+  write('sub/blank.ttl', BLANK_NODES);
   mkdirSync(join(root, 'empty-folder'));
 });
 
@@ -54,7 +62,22 @@ describe('loadSources on folders', () => {
       ['demo/rolling-stock.ttl', 'turtle', 2],
     ]);
     expect(result.sources[0].statements[0].position.file).toBe('demo/infrastructure/fleet.trig.gz');
-    expect(result.skippedFiles).toEqual(['demo/README.md']);
+    // node_modules and dot-folders are counted as skipped, as the folder with a trailing slash.
+    expect(result.skippedFiles).toEqual(['demo/.cache/', 'demo/README.md', 'demo/node_modules/']);
+  });
+
+  it('lists skipped dot-folders at any depth, named from the folder as the user wrote it', async () => {
+    const result = await loadSources(['./nested/'], { cwd: root });
+    expect(result.errors).toEqual([]);
+    expect(result.sources.map((source) => source.file)).toEqual(['./nested/depots/north.ttl']);
+    expect(result.skippedFiles).toEqual(['./nested/.git/', './nested/depots/.backup/', './nested/depots/node_modules/']);
+  });
+
+  it('reports a folder that holds only skipped folders as holding no RDF files, and still lists them', async () => {
+    const result = await loadSources(['only-hidden'], { cwd: root });
+    expect(result.sources).toEqual([]);
+    expect(result.errors.map((error) => error.file)).toEqual(['only-hidden']);
+    expect(result.skippedFiles).toEqual(['only-hidden/.snapshots/']);
   });
 
   it('keeps the folder as the user wrote it, trailing slash or not', async () => {
@@ -157,10 +180,49 @@ describe('loadSources on stdin', () => {
     expect(result.sources[0].statements[0].position).toEqual({ file: '<stdin>', line: 1, column: 1 });
   });
 
+  it('gives stdin whose syntax cannot be told a hint about stdin, not about file names', async () => {
+    const stdin = Readable.from([Buffer.from('Northvale Rail asset graph, see the wiki.\n')]);
+    const result = await loadSources(['-'], { cwd: root, stdin });
+    expect(result.sources).toEqual([]);
+    expect(result.errors).toHaveLength(1);
+    expect(result.errors[0]).toMatchObject({ file: '<stdin>', line: 0, column: 0 });
+    expect(result.errors[0].message).toBe('The syntax of standard input could not be told from its content; it was not read.');
+    expect(result.errors[0].hint).toMatch(/^standard input has no name to tell its syntax by/);
+    expect(result.errors[0].hint).toContain('Turtle, TriG, N-Triples or N-Quads');
+    expect(result.errors[0].hint).not.toContain('name the file');
+  });
+
   it('decompresses gzip on stdin and resolves relative IRIs against file:///dev/stdin', async () => {
     const stdin = Readable.from([gzipSync('@prefix nv: <https://data.northvale-rail.example/def/> .\n<Car> a nv:Wagon .\n')]);
     const result = await loadSources(['-'], { stdin });
     expect(result.sources[0].format).toBe('turtle');
     expect(result.sources[0].statements[0].subject).toBe('file:///dev/Car');
+  });
+});
+
+describe('blank node labels from loadSources', () => {
+  const subjectsOf = async (paths: string[]) =>
+    (await loadSources(paths, { cwd: root })).sources.map((source) => source.statements.map((statement) => statement.subject));
+
+  it('are the same however the same file is written, and differ for another file', async () => {
+    const [plain] = await subjectsOf(['blank.ttl']);
+    expect(plain[0]).toMatch(/^_:b[0-9a-f]{8}_coupler$/);
+    expect(await subjectsOf(['./blank.ttl'])).toEqual([plain]);
+    expect(await subjectsOf(['sub/../blank.ttl'])).toEqual([plain]);
+    expect(await subjectsOf([join(root, 'blank.ttl')])).toEqual([plain]);
+    const [other] = await subjectsOf(['sub/blank.ttl']);
+    expect(other[0]).not.toBe(plain[0]);
+    expect(other[0].endsWith('_coupler')).toBe(true);
+  });
+
+  it('come from the given cwd, without reading the process working folder', async () => {
+    const cwdSpy = vi.spyOn(process, 'cwd');
+    try {
+      const result = await loadSources(['./blank.ttl', 'demo'], { cwd: root });
+      expect(result.sources).toHaveLength(4);
+      expect(cwdSpy).not.toHaveBeenCalled();
+    } finally {
+      cwdSpy.mockRestore();
+    }
   });
 });
