@@ -131,21 +131,36 @@ function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; co
   const skipped = skippedFiles.filter((shown) => !consumed(shown));
   if (skipped.length === 0) return [];
   const folder = commonFolder(skipped);
-  const named = skipped
-    .slice(0, SKIPPED_NAMES_SHOWN)
-    .map((shown) => path.relative(folder, shown).split(path.sep).join('/'))
-    .join(', ');
-  const rest = skipped.length > SKIPPED_NAMES_SHOWN ? ` and ${skipped.length - SKIPPED_NAMES_SHOWN} more` : '';
-  const files = skipped.length === 1 ? '1 file under it was not read, as its name does' : `${skipped.length} files under it were not read, as their names do`;
+  // The loader lists a folder it did not walk with a trailing slash, a file without.
+  const folders = skipped.filter((shown) => shown.endsWith('/'));
+  const files = skipped.filter((shown) => !shown.endsWith('/'));
+  const clauses: string[] = [];
+  if (files.length > 0) {
+    const count = files.length === 1 ? '1 file was not read, as its name does' : `${files.length} files were not read, as their names do`;
+    clauses.push(`${count} not end in ${RDF_EXTENSIONS.join(', ')} (or those with .gz): ${namesUnder(folder, files)}`);
+  }
+  if (folders.length > 0) {
+    const count = folders.length === 1 ? '1 folder was not walked' : `${folders.length} folders were not walked`;
+    clauses.push(`${count} (hidden folders and node_modules): ${namesUnder(folder, folders)}`);
+  }
   return [
     {
       file: folder,
       line: 0,
       column: 0,
-      message: `${files} not end in ${RDF_EXTENSIONS.join(', ')} (or those with .gz): ${named}${rest}`,
-      hint: 'name a file on the command line to read it whatever its extension (its syntax is then told from its content)',
+      message: `under this folder ${clauses.join('; ')}`,
+      hint: 'name a Turtle, TriG, N-Triples or N-Quads file on the command line to read it whatever its extension (its syntax is then told from its content)',
     },
   ];
+}
+
+/** The first few of the paths, relative to the folder (a folder keeps its trailing slash), then a count of the rest. */
+function namesUnder(folder: string, shown: string[]): string {
+  const named = shown
+    .slice(0, SKIPPED_NAMES_SHOWN)
+    .map((item) => path.relative(folder, item).split(path.sep).join('/') + (item.endsWith('/') ? '/' : ''))
+    .join(', ');
+  return shown.length > SKIPPED_NAMES_SHOWN ? `${named} and ${shown.length - SKIPPED_NAMES_SHOWN} more` : named;
 }
 
 /** A warning when sources were read but none held a statement, so that an empty export does not pass unnoticed. */

@@ -116,17 +116,25 @@ describe('files a folder holds that are not read', () => {
         file: 'data',
         line: 0,
         column: 0,
-        message: '2 files under it were not read, as their names do not end in .ttl, .trig, .nt, .nq (or those with .gz): README.md, extra/assets.owl',
-        hint: 'name a file on the command line to read it whatever its extension (its syntax is then told from its content)',
+        message: 'under this folder 2 files were not read, as their names do not end in .ttl, .trig, .nt, .nq (or those with .gz): README.md, extra/assets.owl',
+        hint: 'name a Turtle, TriG, N-Triples or N-Quads file on the command line to read it whatever its extension (its syntax is then told from its content)',
       },
     ]);
+  });
+
+  it('name the hidden folders and node_modules that were not walked, apart from the files', async () => {
+    const dir = folderWith({ 'data/assets.ttl': CYCLE_AND_ORPHAN, 'data/.git/config.ttl': CYCLE_AND_ORPHAN, 'data/notes.txt': 'x' });
+    const result = await run(dir, ['check', 'data', '-f', 'json']);
+    expect(JSON.parse(result.out).inputWarnings[0].message).toBe(
+      'under this folder 1 file was not read, as its name does not end in .ttl, .trig, .nt, .nq (or those with .gz): notes.txt; 1 folder was not walked (hidden folders and node_modules): .git/',
+    );
   });
 
   it('are counted past the first five names', async () => {
     const files: Record<string, string> = { 'data/assets.ttl': CYCLE_AND_ORPHAN };
     for (let index = 1; index <= 7; index++) files[`data/note-${index}.txt`] = 'x';
     const result = await run(folderWith(files), ['check', 'data', '-f', 'json']);
-    expect(JSON.parse(result.out).inputWarnings[0].message).toMatch(/^7 files under it were not read, .*: note-1\.txt, note-2\.txt, note-3\.txt, note-4\.txt, note-5\.txt and 2 more$/);
+    expect(JSON.parse(result.out).inputWarnings[0].message).toMatch(/^under this folder 7 files were not read, .*: note-1\.txt, note-2\.txt, note-3\.txt, note-4\.txt, note-5\.txt and 2 more$/);
   });
 });
 
