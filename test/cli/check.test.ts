@@ -1,11 +1,9 @@
 // End-to-end specification of `isapart check`: exit codes, inputs, outputs.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, readdirSync, writeFileSync, mkdirSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.js';
-import { fakeTerminal } from './terminal-fake.js';
+import { folderWith, runCli } from './terminal-fake.js';
 
 const PREFIXES = `@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .
 @prefix dcterms: <http://purl.org/dc/terms/> .
@@ -15,22 +13,7 @@ const CLEAN = `${PREFIXES}nv:Bogie rdfs:subClassOf nv:Component .\nnv:Component 
 const CYCLE = `${PREFIXES}nv:Car rdfs:subClassOf nv:Vehicle .\nnv:Vehicle rdfs:subClassOf nv:Car .\n`;
 const BROKEN = `${PREFIXES}nv:Signal rdfs:subClassOf nv:Equipment .\nnv:Lamp rdfs:subClassOf nv:Signal\nnv:Mast rdfs:subClassOf .\n`;
 
-/** A fresh temporary folder holding the given files. */
-function folderWith(files: Record<string, string>): string {
-  const dir = mkdtempSync(path.join(tmpdir(), 'isapart-cli-'));
-  for (const [name, text] of Object.entries(files)) {
-    mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
-    writeFileSync(path.join(dir, name), text);
-  }
-  return dir;
-}
-
-/** Runs the CLI in a folder and returns exit code and output. */
-async function run(dir: string, args: string[], input = '') {
-  const terminal = fakeTerminal(dir, input);
-  const code = await main(args, terminal);
-  return { code, out: terminal.stdout.join(''), err: terminal.stderr.join('') };
-}
+const run = runCli;
 
 describe('isapart check', () => {
   it('exits 0 on a clean hierarchy', async () => {
