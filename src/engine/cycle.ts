@@ -8,7 +8,7 @@ import { PathSearch, stepSuccessors, type SearchArena, type WalkedEdge } from '.
 
 /** One cyclic component: members ordered along the closed walk, and the walk's edges (the evidence). */
 export interface CycleComponent {
-  /** The walk's nodes from the member whose term sorts first, then any other members by term. */
+  /** The walk's nodes from the in-scope member whose term sorts first, then any other members by term. */
   members: number[];
   walk: WalkedEdge[];
 }
@@ -74,9 +74,14 @@ export class CycleSource {
     const graph = this.graph;
     const members = this.memberSets()[index];
     const componentOf = this.componentOf as Int32Array;
-    let first = members[0];
+    // The walk starts at the in-scope member whose term sorts first (the finding's focus), so a cycle
+    // through borrowed terms is still reported on a term of the graph's own; with none in scope,
+    // at the member that sorts first.
+    const inScope = members.filter((member) => graph.is('in-scope', member));
+    const candidates = inScope.length > 0 ? inScope : members;
+    let first = candidates[0];
     let firstTerm = graph.term(first);
-    for (const member of members) {
+    for (const member of candidates) {
       const term = graph.term(member);
       if (term < firstTerm) {
         first = member;

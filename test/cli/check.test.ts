@@ -153,3 +153,16 @@ describe('the unused-allow rule', () => {
     expect(JSON.parse(clean.out).findings).toEqual([]);
   });
 });
+
+describe('a cycle through a borrowed term', () => {
+  it('is reported on the in-scope member, even when the borrowed term sorts first', async () => {
+    // "http://purl.org/…" sorts before "https://data.northvale-rail.example/…".
+    const text = `${PREFIXES}nv:Carriage rdfs:subClassOf <http://purl.org/borrowed/Vehicle> .\n<http://purl.org/borrowed/Vehicle> rdfs:subClassOf nv:Carriage .\n`;
+    const dir = folderWith({ 'a.ttl': text });
+    const result = await run(dir, ['check', 'a.ttl', '--scope', 'https://data.northvale-rail.example/', '-f', 'json']);
+    const cycles = JSON.parse(result.out).findings.filter((f: { ruleId: string }) => f.ruleId === 'subclass-cycle');
+    expect(cycles.map((f: { focus: string; nodes: string[] }) => [f.focus, f.nodes])).toEqual([
+      ['https://data.northvale-rail.example/def/Carriage', ['https://data.northvale-rail.example/def/Carriage', 'http://purl.org/borrowed/Vehicle']],
+    ]);
+  });
+});
