@@ -35,9 +35,9 @@ describe('planRule', () => {
   });
 
   it('runs the anti-join on ?a as soon as ?a is bound, and differ right after ?b is bound', () => {
-    // redundant-subclass: [?a sc ?c], [?a sc ?b], differ, [?b sc+ ?c], not [?a sc+ ?a].
+    // redundant-subclass: [?a sc ?c], [?a sc ?b], differ, [?b sc+ ?c], not [?a sc+ ?a], not [?c sc+ ?b].
     const steps = stepsOf(builtin('redundant-subclass'));
-    expect(steps.map((step) => step.kind)).toEqual(['generate', 'anti-join', 'expand', 'differ', 'path-check']);
+    expect(steps.map((step) => step.kind)).toEqual(['generate', 'anti-join', 'expand', 'differ', 'path-check', 'anti-join']);
     // The anti-join's [?a, subclass-of+, ?a] is a single check, answered from cyclic components.
     const antiJoin = steps[1] as Extract<PlanStep, { kind: 'anti-join' }>;
     expect(antiJoin.steps.map((step) => step.kind)).toEqual(['path-check']);

@@ -4,7 +4,7 @@ import { WORDNET_NAMESPACE, synsetIri, type PlantedStatement } from './wordnet-r
 
 /**
  * Statements on rail synsets of WordNet (our Northvale Rail flavour): a subclass 2-cycle and a
- * self-loop, a part-of 2-cycle made of a part holonym and a part meronym, kind-and-part,
+ * self-loop, a class with two direct superclasses in that cycle, a part-of 2-cycle made of a part holonym and a part meronym, kind-and-part,
  * instance-and-subclass, a redundant direct superclass, an in-scope orphan and an out-of-scope
  * one (which must not be reported), two disjointness axioms (one with overlaps, one without) and a
  * deprecated class that is in use. Synsets are looked up by word, never by a remembered offset.
@@ -32,11 +32,14 @@ export function plantVariation(synsets: NounSynset[]): PlantedStatement[] {
   const pantograph = byWord('pantograph');
   const locomotive = byWord('locomotive');
   const wheeledVehicle = byWord('wheeled_vehicle');
+  const boxcar = byWord('boxcar');
   const [locomotiveParent] = hypernymsOf(locomotive);
   const [locomotiveGrandparent] = hypernymsOf(locomotiveParent);
   return [
     { kind: 'hypernym', subject: iri(railcar), object: iri(freightCar) },
     { kind: 'hypernym', subject: iri(pantograph), object: iri(pantograph) },
+    // boxcar is already under freight_car; with railcar too, its two superclasses share the cycle above.
+    { kind: 'hypernym', subject: iri(boxcar), object: iri(railcar) },
     { kind: 'partMeronym', subject: iri(train), object: iri(railcar) },
     { kind: 'partHolonym', subject: iri(train), object: iri(railcar) },
     { kind: 'partHolonym', subject: iri(carWheel), object: iri(wheel) },
