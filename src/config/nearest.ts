@@ -1,23 +1,5 @@
 // Edit distance and "did you mean" suggestions for misspelt keys, rule ids, roles and presets.
 
-/** The Levenshtein distance between two strings (insertions, deletions, substitutions), two rows of memory. */
-export function editDistance(left: string, right: string): number {
-  if (left === right) return 0;
-  let previous = new Uint32Array(right.length + 1);
-  let current = new Uint32Array(right.length + 1);
-  for (let j = 0; j <= right.length; j++) previous[j] = j;
-  for (let i = 1; i <= left.length; i++) {
-    current[0] = i;
-    const leftCode = left.charCodeAt(i - 1);
-    for (let j = 1; j <= right.length; j++) {
-      const substitution = previous[j - 1] + (leftCode === right.charCodeAt(j - 1) ? 0 : 1);
-      current[j] = Math.min(previous[j] + 1, current[j - 1] + 1, substitution);
-    }
-    [previous, current] = [current, previous];
-  }
-  return previous[right.length];
-}
-
 /**
  * The optimal string alignment distance: Levenshtein edits plus the swap of two adjacent
  * characters as one edit, so the common typo `scpoe` is one edit from `scope`. Three rows of memory.
