@@ -1,6 +1,6 @@
 // Suppression: allow comments in the sources and `allow:` entries in config, and the ones that suppress nothing.
 import type { AllowEntry } from '../config/config.js';
-import type { AllowComment } from '../load/statement.js';
+import type { AllowComment, Position } from '../load/statement.js';
 import type { Finding, Suppression } from './finding.js';
 import { fingerprintOf } from './fingerprint.js';
 import type { RuleDefinition } from './rule.js';
@@ -108,32 +108,35 @@ function lineKey(file: string, line: number): string {
 }
 
 // An unused allow has no node: its focus is the rule it names, and like every fingerprint its
-// fingerprint comes from the rule id and the nodes (here the named rule and the reason), never from
-// files or lines, so moving the comment keeps it.
-function unusedComment(comment: AllowComment): Finding {
-  const nodes = [comment.ruleId, comment.reason];
+// fingerprint comes from the rule id and the nodes (the named rule, then the reason or the focus),
+// never from files or lines, so moving the comment keeps it.
+function unusedAllow(named: string, nodes: string[], message: string, location: Position): Finding {
   return {
     ruleId: UNUSED_ALLOW_RULE.id,
     level: 'note',
-    focus: comment.ruleId,
+    focus: named,
     nodes,
-    message: `the allow comment for ${comment.ruleId} suppresses nothing and should be removed`,
+    message,
     evidence: [],
     fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, nodes),
-    location: { file: comment.file, line: comment.line, column: comment.column },
+    location,
   };
 }
 
+function unusedComment(comment: AllowComment): Finding {
+  return unusedAllow(
+    comment.ruleId,
+    [comment.ruleId, comment.reason],
+    `the allow comment for ${comment.ruleId} suppresses nothing and should be removed`,
+    { file: comment.file, line: comment.line, column: comment.column },
+  );
+}
+
 function unusedEntry(entry: AllowEntry): Finding {
-  const nodes = [entry.rule, entry.focus];
-  return {
-    ruleId: UNUSED_ALLOW_RULE.id,
-    level: 'note',
-    focus: entry.rule,
-    nodes,
-    message: `the allow entry for ${entry.rule} on ${entry.focus} suppresses nothing and should be removed`,
-    evidence: [],
-    fingerprint: fingerprintOf(UNUSED_ALLOW_RULE.id, nodes),
-    location: { file: entry.file, line: entry.line, column: 1 },
-  };
+  return unusedAllow(
+    entry.rule,
+    [entry.rule, entry.focus],
+    `the allow entry for ${entry.rule} on ${entry.focus} suppresses nothing and should be removed`,
+    { file: entry.file, line: entry.line, column: 1 },
+  );
 }

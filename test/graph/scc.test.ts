@@ -27,6 +27,14 @@ function adjacency({ nodeCount, edges }: RandomGraph): number[][] {
 }
 
 /** A partition as a sorted list of sorted member lists, so two partitions compare with toEqual. */
+/** The same random graph as a graphlib directed graph, the reference implementation's input. */
+function graphlibGraph(graph: { nodeCount: number; edges: [number, number][] }): Graph {
+  const reference = new Graph({ directed: true });
+  for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
+  for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
+  return reference;
+}
+
 function canonical(groups: number[][]): string[] {
   return groups.map((group) => [...group].sort((a, b) => a - b).join(',')).sort();
 }
@@ -37,9 +45,7 @@ describe('stronglyConnected', () => {
     fc.assert(
       fc.property(randomGraph, (graph) => {
         const lists = adjacency(graph);
-        const reference = new Graph({ directed: true });
-        for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
-        for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
+        const reference = graphlibGraph(graph);
         const expected = canonical(alg.tarjan(reference).map((group) => group.map(Number)));
 
         const { component, count } = stronglyConnected(graph.nodeCount, (id) => lists[id]);
@@ -79,9 +85,7 @@ describe('cyclicComponents', () => {
     fc.assert(
       fc.property(randomGraph, (graph) => {
         const lists = adjacency(graph);
-        const reference = new Graph({ directed: true });
-        for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
-        for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
+        const reference = graphlibGraph(graph);
         const expected = canonical(alg.findCycles(reference).map((group) => group.map(Number)));
         const found = cyclicComponents(graph.nodeCount, (id) => lists[id]);
         expect(canonical(found)).toEqual(expected);

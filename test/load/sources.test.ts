@@ -1,12 +1,12 @@
 // loadSources: files, folders, stdin and gzip, in a deterministic order, with errors instead of silent drops.
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { pathToFileURL } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { loadSources } from '../../src/load/sources.js';
+import { temporaryTree } from './temp-tree.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
 const ROLLING_STOCK = `@prefix nv: <${NV}> .\nnv:Pantograph nv:partOf nv:Locomotive .\nnv:Locomotive a nv:RollingStock .\n`;
@@ -17,12 +17,9 @@ const FLEET_TRIG = `@prefix nv: <${NV}> .\nnv:fleet-2024 { nv:Car nv:partOf nv:T
 let root: string;
 
 beforeAll(() => {
-  root = mkdtempSync(join(tmpdir(), 'isapart-load-'));
-  const write = (relative: string, content: string | Uint8Array): void => {
-    const path = join(root, relative);
-    mkdirSync(join(path, '..'), { recursive: true });
-    writeFileSync(path, content);
-  };
+  const tree = temporaryTree('isapart-load-');
+  root = tree.root;
+  const write = tree.write;
   write('demo/rolling-stock.ttl', ROLLING_STOCK);
   write('demo/infrastructure/track.nt', INFRASTRUCTURE);
   write('demo/infrastructure/fleet.trig.gz', gzipSync(FLEET_TRIG));

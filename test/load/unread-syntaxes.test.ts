@@ -1,12 +1,11 @@
 // RDF/XML and JSON-LD: recognised by name or content and refused with one clear error, never parsed as Turtle.
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { readFileSync, rmSync } from 'node:fs';
 import { Readable } from 'node:stream';
 import { gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { detectFormat, detectUnreadSyntax } from '../../src/load/format.js';
 import { loadSources } from '../../src/load/sources.js';
+import { temporaryTree } from './temp-tree.js';
 import { readManifest } from './w3c-manifest.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
@@ -52,12 +51,9 @@ describe('recognising RDF/XML from the W3C RDF/XML test suite', () => {
 let root: string;
 
 beforeAll(() => {
-  root = mkdtempSync(join(tmpdir(), 'isapart-unread-'));
-  const write = (relative: string, content: string | Uint8Array): void => {
-    const path = join(root, relative);
-    mkdirSync(join(path, '..'), { recursive: true });
-    writeFileSync(path, content);
-  };
+  const tree = temporaryTree('isapart-unread-');
+  root = tree.root;
+  const write = tree.write;
   write('vocab/assets.owl', RDF_XML);
   write('vocab/assets.rdf.gz', gzipSync(RDF_XML));
   write('vocab/assets.xml', RDF_XML);

@@ -4,15 +4,12 @@ import type { Finding, Level, RuleFailure } from '../../src/engine/finding.js';
 import type { RuleDefinition } from '../../src/engine/rule.js';
 import type { InputError, Literal, Statement } from '../../src/load/statement.js';
 import type { ReportContext, RuleInUse } from '../../src/report/context.js';
+import { DCTERMS_IS_PART_OF, OWL_DEPRECATED, RDFS_SUBCLASS_OF, XSD_BOOLEAN } from '../../src/roles/vocabulary.js';
 
 export const CWD = '/srv/northvale';
 export const DEF = 'https://data.northvale-rail.example/def/';
 export const ASSET = 'https://data.northvale-rail.example/asset/';
-export const RDFS_SUBCLASS_OF = 'http://www.w3.org/2000/01/rdf-schema#subClassOf';
-export const RDF_TYPE = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#type';
-export const DCTERMS_IS_PART_OF = 'http://purl.org/dc/terms/isPartOf';
-export const OWL_DEPRECATED = 'http://www.w3.org/2002/07/owl#deprecated';
-export const XSD_BOOLEAN = 'http://www.w3.org/2001/XMLSchema#boolean';
+export { DCTERMS_IS_PART_OF, OWL_DEPRECATED, RDF_TYPE, RDFS_SUBCLASS_OF, XSD_BOOLEAN } from '../../src/roles/vocabulary.js';
 
 export const ROLLING_STOCK = `${CWD}/data/rolling-stock.ttl`;
 export const INFRASTRUCTURE = `${CWD}/data/infrastructure.trig`;
