@@ -3,7 +3,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
-    exclude: ['test/bench/**', 'node_modules/**'],
+    exclude: ['test/bench/**', 'test/system/**', 'node_modules/**'],
     testTimeout: 120_000,
     hookTimeout: 120_000,
   },
