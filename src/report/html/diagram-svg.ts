@@ -68,10 +68,10 @@ function nodeSvg(node: DiagramNode): string {
   const tooltip = node.label === undefined ? term : `${term}\n${node.label}`;
   // Blank nodes are pill-shaped, literals square-cornered, IRIs slightly rounded.
   const radius = node.kind === 'blank' ? node.height / 2 : node.kind === 'literal' ? 0 : 5;
-  const label = node.label === undefined
+  const label = node.shownLabel === undefined
     ? ''
-    : `<text class="label" x="${round(node.x)}" y="${round(node.y + 13)}">${escapeHtml(`“${node.label}”`)}</text>`;
-  const nameY = node.label === undefined ? node.y + 4 : node.y - 3;
+    : `<text class="label" x="${round(node.x)}" y="${round(node.y + 13)}">${escapeHtml(`“${node.shownLabel}”`)}</text>`;
+  const nameY = node.shownLabel === undefined ? node.y + 4 : node.y - 3;
   return (
     `<g class="node ${node.kind} ${node.emphasis}" data-term="${escapeHtml(term)}">` +
     `<title>${escapeHtml(tooltip)}</title>` +

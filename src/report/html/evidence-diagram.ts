@@ -20,7 +20,10 @@ export interface DiagramNode {
   emphasis: NodeEmphasis;
   /** The short name drawn in the box (prefixed name, `_:label` or a literal in Turtle form). */
   text: string;
+  /** The node's label as stated, for its tooltip. */
   label?: string;
+  /** The label as drawn in the box, shortened when long. */
+  shownLabel?: string;
   x: number;
   y: number;
   width: number;
@@ -102,7 +105,7 @@ function evidenceGraph(finding: Finding, options: DiagramTerms): { nodes: Diagra
       kind: isLiteral ? 'literal' : term.startsWith('_:') ? 'blank' : 'iri',
       emphasis: !isLiteral && term === finding.focus ? 'focus' : !isLiteral && involved.has(term) ? 'involved' : 'plain',
       text,
-      ...(shownLabel === undefined ? {} : { label: shownLabel }),
+      ...(label === undefined || shownLabel === undefined ? {} : { label, shownLabel }),
       x: 0,
       y: 0,
       width: Math.ceil((characters * CHARACTER_WIDTH + NODE_PADDING) / WIDTH_STEP) * WIDTH_STEP,

@@ -38,14 +38,11 @@ export const PAGE_SCRIPT = String.raw`
   var page = 0;
   var shown = [];
 
-  function sortRows() {
+  function sortItems() {
     var key = inputs.sort.value;
     if (key === sortedBy || !comparators[key]) return;
     sortedBy = key;
     items.sort(comparators[key]);
-    var fragment = document.createDocumentFragment();
-    items.forEach(function (item) { fragment.appendChild(item.body); });
-    table.appendChild(fragment);
   }
 
   function matches(item, words) {
@@ -61,7 +58,7 @@ export const PAGE_SCRIPT = String.raw`
   }
 
   function apply(fromFirstPage) {
-    sortRows();
+    sortItems();
     var words = inputs.text.value.toLowerCase().split(/\s+/).filter(Boolean);
     var matching = items.filter(function (item) { return matches(item, words); });
     var size = inputs.pageSize.value === 'all' ? Math.max(1, matching.length) : Number(inputs.pageSize.value);
@@ -70,7 +67,11 @@ export const PAGE_SCRIPT = String.raw`
     if (page > pages - 1) page = pages - 1;
     var onPage = matching.slice(page * size, page * size + size);
     shown.forEach(function (item) { item.body.classList.remove('on'); });
-    onPage.forEach(function (item) { item.body.classList.add('on'); });
+    // Hidden rows stay where they are; only the rows of the page are moved, into the sorted order.
+    onPage.forEach(function (item) {
+      item.body.classList.add('on');
+      table.appendChild(item.body);
+    });
     shown = onPage;
     status.textContent = matching.length === 0
       ? 'No finding matches the filters (' + items.length + ' in the report).'
