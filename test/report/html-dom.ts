@@ -5,10 +5,15 @@ import { parse, type DefaultTreeAdapterMap } from 'parse5';
 export type HtmlNode = DefaultTreeAdapterMap['node'];
 export type HtmlElement = DefaultTreeAdapterMap['element'];
 
-/** The parsed document and every parse error parse5 raised (parse5 recovers from errors, so they are collected). */
-export function parseReport(html: string): { document: DefaultTreeAdapterMap['document']; errors: { code: string; line: number; column: number }[] } {
+/**
+ * The parsed document and every parse error parse5 raised (parse5 recovers from errors, so they are
+ * collected). By default the page is parsed as a browser with scripting off does, so the diagrams
+ * inside <noscript> are elements; with `scripting` they are text, as for a browser running the script.
+ */
+export function parseReport(html: string, options: { scripting?: boolean } = {}): { document: DefaultTreeAdapterMap['document']; errors: { code: string; line: number; column: number }[] } {
   const errors: { code: string; line: number; column: number }[] = [];
   const document = parse(html, {
+    scriptingEnabled: options.scripting ?? false,
     onParseError: (error) => void errors.push({ code: error.code, line: error.startLine, column: error.startCol }),
   });
   return { document, errors };

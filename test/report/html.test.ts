@@ -54,6 +54,13 @@ describe('HTML report of the demo', () => {
     expect(select(document, 'body')).toHaveLength(1);
     const ids = elements(document).map((element) => attribute(element, 'id')).filter((id) => id !== undefined);
     expect(new Set(ids).size).toBe(ids.length);
+    // As a browser running the script parses it: also no error, and the diagrams wait as <noscript> text until a row is expanded.
+    const scripted = parseReport(html, { scripting: true });
+    expect(scripted.errors).toEqual([]);
+    expect(select(scripted.document, 'svg', 'diagram')).toEqual([]);
+    const waiting = select(scripted.document, 'noscript').map(textOf);
+    expect(waiting).toHaveLength(demo.findings.filter((finding) => finding.evidence.length > 0).length);
+    expect(waiting.every((text) => text.startsWith('<svg class="diagram"'))).toBe(true);
   });
 
   it('refers to nothing outside itself: no http(s) in any src or href, no external script, style, font or image', () => {

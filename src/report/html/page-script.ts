@@ -104,6 +104,14 @@ export const PAGE_SCRIPT = String.raw`
     if (details) details.open = !details.open;
   });
 
+  // A diagram is drawn when its row is first expanded: its markup waits as the text of a <noscript>.
+  table.addEventListener('toggle', function (event) {
+    var details = event.target;
+    if (!details.open) return;
+    var waiting = details.querySelector('.diagram-box > noscript');
+    if (waiting) waiting.parentNode.innerHTML = waiting.textContent;
+  }, true);
+
   // Printing shows the rows of the current page with their details open, then puts them back.
   var openedForPrint = [];
   window.addEventListener('beforeprint', function () {

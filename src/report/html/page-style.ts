@@ -77,6 +77,7 @@ details[open] > summary { color: var(--ink); }
 .edge:hover .line { stroke-width: 3; }
 #pager { display: flex; gap: 10px; align-items: center; margin: 10px 0 30px; }
 #pager button { font: inherit; padding: 2px 10px; }
+.controls[hidden], #pager[hidden] { display: none; }
 footer { max-width: 1280px; margin: 20px auto; padding: 0 20px 20px; color: var(--muted); font-size: 12px; }
 @media print {
   body { font-size: 10pt; }
