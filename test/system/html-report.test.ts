@@ -12,6 +12,24 @@ import { lintDemo } from '../report/html-demo-run.js';
 import { openChromium } from './chromium.js';
 import { ASSET, PLANTED_PER_GROUP, writePlantedGraph } from './planted-graph.js';
 
+// The browser globals that the functions run in the page use: this project compiles without the DOM
+// library, so they are declared here, in this module only, with just the members used.
+interface PageElement {
+  dataset: Record<string, string | undefined>;
+  offsetParent: unknown;
+  tagName: string;
+  value: string;
+  click(): void;
+  dispatchEvent(event: unknown): boolean;
+}
+declare const document: { querySelector(selector: string): PageElement | null };
+declare const requestAnimationFrame: (callback: () => void) => number;
+declare const Event: new (type: string) => unknown;
+/** The page's navigation timing entry (W3C Navigation Timing Level 2), with the fields read here. */
+interface PagePerformance {
+  getEntriesByType(type: 'navigation'): { domContentLoadedEventEnd: number; loadEventEnd: number }[];
+}
+
 /** Screenshots and measurements for review go here (ignored by git). */
 const OUTPUT = path.resolve('test-output');
 
@@ -37,7 +55,7 @@ function watchProblems(page: Page): string[] {
 /** The rule ids of the rows the reader can see. */
 function visibleRules(page: Page): Promise<string[]> {
   return page.$$eval('tbody.finding', (rows) =>
-    rows.filter((row) => (row as HTMLElement).offsetParent !== null).map((row) => (row as HTMLElement).dataset.rule ?? ''),
+    rows.map((row) => row as unknown as PageElement).filter((row) => row.offsetParent !== null).map((row) => row.dataset.rule ?? ''),
   );
 }
 
@@ -46,7 +64,7 @@ async function choose(page: Page, selector: string, value: string): Promise<numb
   return page.evaluate(
     async ([target, chosen]) => {
       const started = performance.now();
-      const control = document.querySelector(target) as HTMLSelectElement | HTMLInputElement;
+      const control = document.querySelector(target)!;
       control.value = chosen;
       control.dispatchEvent(new Event(control.tagName === 'INPUT' ? 'input' : 'change'));
       // A search waits for the reader to stop typing (150 ms); then one frame is drawn.
@@ -62,7 +80,7 @@ async function choose(page: Page, selector: string, value: string): Promise<numb
 async function clickInPage(page: Page, selector: string): Promise<number> {
   return page.evaluate(async (target) => {
     const started = performance.now();
-    (document.querySelector(target) as HTMLElement).click();
+    document.querySelector(target)!.click();
     await new Promise((resolve) => requestAnimationFrame(() => setTimeout(resolve, 0)));
     return performance.now() - started;
   }, selector);
@@ -140,7 +158,7 @@ describe('the demo report in Chromium', () => {
       await diagram.waitFor({ state: 'visible' });
       expect(await diagram.locator('g.node').count()).toBe(cycle.nodes.length);
       expect(await diagram.locator('g.edge').count()).toBe(cycle.evidence.length);
-      const terms = await diagram.locator('g.node').evaluateAll((nodes) => nodes.map((node) => (node as SVGGElement).dataset.term));
+      const terms = await diagram.locator('g.node').evaluateAll((nodes) => nodes.map((node) => (node as unknown as PageElement).dataset.term));
       expect(terms.sort()).toEqual([...cycle.nodes].sort());
       const box = await diagram.boundingBox();
       expect(box!.width).toBeGreaterThan(100);
@@ -219,7 +237,8 @@ describe('a 10,000-finding report in Chromium', () => {
       await page.goto(url, { timeout: 240_000 });
       timings.openMs = Date.now() - started;
       const navigation = await page.evaluate(() => {
-        const entry = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
+        // In the page this is the browser's own performance object.
+        const entry = (performance as unknown as PagePerformance).getEntriesByType('navigation')[0];
         return { domContentLoaded: entry.domContentLoadedEventEnd, load: entry.loadEventEnd };
       });
       timings.domContentLoadedMs = navigation.domContentLoaded;
@@ -239,7 +258,7 @@ describe('a 10,000-finding report in Chromium', () => {
       await choose(page, '#filter-text', '');
 
       timings.sortByFocusMs = await choose(page, '#sort', 'focus');
-      const focusOrder = await page.$$eval('tbody.finding.on', (rows) => rows.map((row) => (row as HTMLElement).dataset.focus!.toLowerCase()));
+      const focusOrder = await page.$$eval('tbody.finding.on', (rows) => rows.map((row) => (row as unknown as PageElement).dataset.focus!.toLowerCase()));
       expect(focusOrder).toEqual([...focusOrder].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0)));
 
       timings.allRowsOfOneRuleMs = await choose(page, '#page-size', 'all');
