@@ -14,6 +14,8 @@ import { pageStyle } from './page-style.js';
 /** Rows per page when the script pages the table; the reader can choose another size. */
 const PAGE_SIZES = [50, 100, 500];
 const DEFAULT_PAGE_SIZE = 100;
+/** Up to this many findings the reader may also show all rows at once; above it, showing them all would stall the page. */
+const ALL_ROWS_LIMIT = 1000;
 
 // Nothing may be fetched: no scripts, styles, fonts or images but the inline ones (WHATWG HTML, the http-equiv pragma).
 const CONTENT_SECURITY_POLICY = "default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:";
@@ -93,7 +95,12 @@ function controls(findings: readonly Finding[], context: RowContext): string {
     hasBaseline ? select('filter-baseline', 'Baseline', [['', 'all'], ['new', 'new'], ['unchanged', 'unchanged'], ['absent', 'absent']]) : '',
     '<label for="filter-text">Search<input type="search" id="filter-text" placeholder="IRI, label, message, file…"></label>',
     select('sort', 'Sort by', [['location', 'location (file, line)'], ['rule', 'rule'], ['level', 'level'], ['focus', 'focus']]),
-    select('page-size', 'Rows per page', [...PAGE_SIZES.map((size): [string, string] => [String(size), String(size)]), ['all', 'all']], String(DEFAULT_PAGE_SIZE)),
+    select(
+      'page-size',
+      'Rows per page',
+      [...PAGE_SIZES.map((size): [string, string] => [String(size), String(size)]), ...(findings.length <= ALL_ROWS_LIMIT ? [['all', 'all'] as [string, string]] : [])],
+      String(DEFAULT_PAGE_SIZE),
+    ),
   ];
   return `<form id="controls" class="controls" hidden role="search">${fields.join('')}</form>`;
 }
