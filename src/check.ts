@@ -16,6 +16,7 @@ import type { AllowComment, InputError, LoadedSource } from './load/statement.js
 import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
+import { findingTermFacts } from './report/term-facts.js';
 import { buildRoleMap } from './roles/role-map.js';
 import { toolVersion } from './version.js';
 
@@ -107,6 +108,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     configFile: config.file,
     prefixes: declaredPrefixes(loaded.sources),
     stats: graph.stats,
+    ...findingTermFacts(findings, graph, roleMap),
     color: options.color ?? false,
     startTime,
     endTime: new Date(),

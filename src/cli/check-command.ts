@@ -2,6 +2,7 @@
 import path from 'node:path';
 import { atOrAbove, check, exitCodeFor, parseRuleLevel, type FailOn } from '../check.js';
 import type { Finding, Level } from '../engine/finding.js';
+import { toHtml } from '../report/html/html.js';
 import { toJson } from '../report/json.js';
 import { toSarif } from '../report/sarif.js';
 import { toText } from '../report/text.js';
@@ -11,7 +12,7 @@ import { outputPathProblem, writeFailureReason, writeFileAtomically } from './wr
 
 /** The options of `isapart check` as commander parses them. */
 export interface CheckCommandOptions {
-  format: 'text' | 'json' | 'sarif';
+  format: 'text' | 'json' | 'sarif' | 'html';
   output?: string;
   config?: string;
   preset?: string[];
@@ -23,7 +24,7 @@ export interface CheckCommandOptions {
   quiet?: boolean;
 }
 
-const FORMATTERS = { text: toText, json: toJson, sarif: toSarif } as const;
+const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, html: toHtml } as const;
 
 /** Parses `--rule ID=LEVEL` values; a malformed one is a usage error message. */
 function parseRuleOptions(values: string[]): { levels: Record<string, string>; error?: string } {

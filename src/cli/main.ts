@@ -10,6 +10,8 @@ const CHECK_EXAMPLES = `
 Examples:
   $ isapart check extract.ttl                    lint one file
   $ isapart check data/ -f sarif -o lint.sarif   lint a folder, write SARIF for code scanning
+  $ isapart check data/ -f html -o report.html   a page to review in a browser: filters, and an
+                                                 evidence diagram per finding (works offline)
   $ zcat dump.nt.gz | isapart check -            lint standard input (format sniffed)
   $ isapart check data/ --rule orphan-class=off --fail-on warning
   $ isapart check data/ --scope https://data.northvale-rail.example/ --root https://data.northvale-rail.example/def/Asset
@@ -57,7 +59,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .command('check')
     .description('lint RDF files, folders (recursively, by extension) or standard input (-)')
     .argument('[paths...]', 'files, folders, or - for standard input', ['.'])
-    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'sarif']).default('text'))
+    .addOption(new Option('-f, --format <format>', 'output format (html: one self-contained page with a diagram per finding)').choices(['text', 'json', 'sarif', 'html']).default('text'))
     .option('-o, --output <file>', 'write the report to a file (atomically) instead of standard output')
     .option('-c, --config <file>', 'config file (default: nearest isapart.yaml upward from the first path)')
     .option('--preset <names>', 'add role presets, comma-separated: rdfs,owl,dcterms,schema,obo,skos', collectList)

@@ -33,6 +33,8 @@ export interface Finding {
   location?: Position;
   fix?: { remove: Statement[] };
   suppression?: Suppression;
+  /** Where a baseline is in use: whether the finding is new, also in the baseline, or only in the baseline. */
+  baselineState?: 'new' | 'unchanged' | 'absent';
 }
 
 /** A rule that failed while running; reported instead of crashing the run. */

@@ -3,6 +3,7 @@ import type { RuleFailure, RuleLevel } from '../engine/finding.js';
 import type { RuleDefinition } from '../engine/rule.js';
 import type { GraphStats } from '../graph/hierarchy-graph.js';
 import type { InputError, RdfFormat } from '../load/statement.js';
+import type { PredicateMapping } from '../roles/role.js';
 
 /** A rule as the run used it: its definition and its effective level. */
 export interface RuleInUse {
@@ -28,6 +29,10 @@ export interface ReportContext {
   /** Prefixes declared in the sources (first declaration of a name wins), for compact statements. */
   prefixes?: Record<string, string>;
   stats?: GraphStats;
+  /** rdfs:label or skos:prefLabel of the nodes the findings name, where stated (for the HTML report). */
+  labels?: Record<string, string>;
+  /** The role of each predicate in the findings' evidence, where it has one (for the HTML report's diagrams). */
+  predicateRoles?: Record<string, PredicateMapping>;
   /** Colour for the text format. */
   color: boolean;
   startTime: Date;
