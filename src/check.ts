@@ -32,6 +32,8 @@ export interface CheckOptions {
   roots?: string[];
   /** Rule id → level, from --rule ID=LEVEL. */
   ruleLevels?: Record<string, string>;
+  /** The IRI relative IRIs in the sources resolve against (`--base`); default each file's `file://` URL. */
+  baseIri?: string;
   /** Whether the text format may colour its output. */
   color?: boolean;
   /** The command line as typed, for SARIF's invocation record. */
@@ -64,7 +66,8 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
+  const contexts = new Map(Object.entries(config.contexts));
+  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin, baseIri: options.baseIri, contexts });
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 

@@ -74,8 +74,8 @@ describe('detectFormat by content', () => {
       for (const test of readManifest(suite.folder).filter((entry) => entry.kind === 'positive-syntax' || entry.kind === 'eval')) {
         const text = readFileSync(test.actionPath, 'utf8');
         const format = detectFormat('-', text);
-        expect(format, test.name).toBeDefined();
-        const source = parseSource(text, test.actionPath, format as NonNullable<typeof format>, { baseIri: test.baseIri });
+        if (format === undefined || format === 'rdf-xml' || format === 'json-ld') throw new Error(`${test.name}: sniffed as ${format ?? 'nothing'}`);
+        const source = parseSource(text, test.actionPath, format, { baseIri: test.baseIri });
         expect(source.errors, test.name).toEqual([]);
         parsed++;
       }
