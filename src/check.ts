@@ -152,7 +152,7 @@ function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; co
       line: 0,
       column: 0,
       message: `under this folder ${clauses.join('; ')}`,
-      hint: 'name a Turtle, TriG, N-Triples or N-Quads file on the command line to read it whatever its extension (its syntax is then told from its content)',
+      hint: 'name an RDF file on the command line to read it whatever its extension (an .xml file is then read as RDF/XML; any other syntax is told from its content)',
     },
   ];
 }

@@ -8,8 +8,12 @@ import { readManifest, SUITES } from './w3c-manifest.js';
 const NV = 'https://data.northvale-rail.example/def/';
 
 describe('detectFormat by extension', () => {
-  it('maps the four extensions, in any case and under .gz', () => {
-    expect(RDF_EXTENSIONS).toEqual(['.ttl', '.trig', '.nt', '.nq']);
+  it('maps the extensions, in any case and under .gz', () => {
+    expect(RDF_EXTENSIONS).toEqual(['.ttl', '.trig', '.nt', '.nq', '.rdf', '.owl', '.jsonld']);
+    expect(detectFormat('vocab/assets.owl', '')).toBe('rdf-xml');
+    expect(detectFormat('vocab/assets.RDF.gz', '')).toBe('rdf-xml');
+    expect(detectFormat('vocab/assets.xml', '')).toBe('rdf-xml');
+    expect(detectFormat('vocab/assets.jsonld', '')).toBe('json-ld');
     expect(detectFormat('fleet/cars.ttl', '')).toBe('turtle');
     expect(detectFormat('fleet/cars.TTL', '')).toBe('turtle');
     expect(detectFormat('fleet/graphs.trig.gz', '')).toBe('trig');
