@@ -152,14 +152,25 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
       });
     });
   let first = true;
+  let carried = '';
   for await (const raw of chunks) {
-    const chunk = first && raw.startsWith('\ufeff') ? raw.slice(1) : raw;
+    const whole = carried + (first && raw.startsWith('\ufeff') ? raw.slice(1) : raw);
     first = false;
+    // The JSON parser inside works on UTF-8 bytes, so a surrogate pair cut between chunks waits for its second half.
+    const last = whole.charCodeAt(whole.length - 1);
+    const cut = last >= 0xd800 && last <= 0xdbff;
+    carried = cut ? whole.slice(-1) : '';
+    const chunk = cut ? whole.slice(0, -1) : whole;
     const syntax = places.read(chunk);
     // The parser gets only the valid text, so it stops where the syntax error is, with what came before.
     await write(syntax === undefined ? chunk : chunk.slice(0, syntax.validLength));
     if (syntax !== undefined) failure ??= { message: `JSON syntax error: ${syntax.message}`, hint: syntax.hint, place: syntax.place };
     if (failure !== undefined) break;
+  }
+  if (failure === undefined && carried !== '') {
+    const syntax = places.read(carried);
+    if (syntax === undefined) await write(carried);
+    else failure = { message: `JSON syntax error: ${syntax.message}`, hint: syntax.hint, place: syntax.place };
   }
   if (failure === undefined) {
     const ending = places.end();

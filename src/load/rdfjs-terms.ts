@@ -21,6 +21,10 @@ export function prefixedBlankNodeFactory(labelPrefix: string): RDF.DataFactory {
   let anonymousCount = 0;
   return {
     ...DataFactory,
+    // jsonld-streaming-parser passes null for "no language", which n3's factory takes for a tag object.
+    literal: (value: string, languageOrDatatype?: string | RDF.NamedNode | RDF.DirectionalLanguage | null) =>
+      // n3 2.13.12 also takes a { language, direction } object, which its typings leave out.
+      (DataFactory.literal as (value: string, tag?: string | RDF.NamedNode | RDF.DirectionalLanguage) => RDF.Literal)(value, languageOrDatatype ?? undefined),
     blankNode: (label?: string) =>
       DataFactory.blankNode(label === undefined ? `${labelPrefix}-${++anonymousCount}` : `${labelPrefix}${label}`),
   };
