@@ -79,6 +79,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
 
   const graph = buildHierarchyGraph(loaded.sources, roleMap, { prefixes: config.scope, roots: config.roots });
   const inputWarnings = [
+    ...loaded.sources.flatMap((source) => source.warnings ?? []),
     ...(graph.problems ?? []),
     ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
     ...nothingReadWarnings(loaded.sources),

@@ -19,9 +19,19 @@ interface ParserInternals {
   parsingContext: {
     getUnidentifiedValueBufferSafe(depth: number): BufferedValue[];
     getUnidentifiedGraphBufferSafe(depth: number): BufferedValue[];
+    getExpandOptions(): unknown;
   };
+  util: { predicateToTerm(context: ExpandingContext, key: unknown): RDF.Term | null };
   lastOnValueJob: Promise<void>;
 }
+
+/** The part of a parsed JSON-LD context used here: expanding a key as a vocabulary term. */
+interface ExpandingContext {
+  expandTerm(term: string, vocab: boolean, options: unknown): string | null;
+}
+
+/** What the parser reports besides statements: a key whose value JSON-LD drops, at its node object. */
+type DroppedKeyListener = (key: string, place: LineColumn) => void;
 
 /** A statement part the parser holds back until a node's `@id` or its graph is known. */
 interface BufferedValue {
@@ -44,16 +54,36 @@ class PlacedJsonLdParser extends JsonLdParser {
   private readonly heldBack = new WeakMap<RDF.Term, LineColumn>();
   /** The node object of the job being run. */
   currentPlace: LineColumn = START;
+  /** The member name the job's value stands under (through array items), or undefined at the root. */
+  private currentKey: JsonKey | undefined;
 
-  constructor(options: ConstructorParameters<typeof JsonLdParser>[0], places: JsonPlaces, onQuad: (quad: RDF.Quad, place: LineColumn) => void) {
+  constructor(
+    options: ConstructorParameters<typeof JsonLdParser>[0],
+    places: JsonPlaces,
+    listeners: { quad: (quad: RDF.Quad, place: LineColumn) => void; droppedKey: DroppedKeyListener },
+  ) {
     super(options);
     this.places = places;
-    this.onQuad = onQuad;
-    const context = (this as unknown as ParserInternals).parsingContext;
+    this.onQuad = listeners.quad;
+    const internals = this as unknown as ParserInternals;
+    const context = internals.parsingContext;
     for (const name of ['getUnidentifiedValueBufferSafe', 'getUnidentifiedGraphBufferSafe'] as const) {
       const original = context[name].bind(context);
       context[name] = (depth: number) => this.remembering(original(depth));
     }
+    // A key that expands to no IRI states nothing, and JSON-LD drops it without a word; it is reported instead.
+    // A key mapped to null in the context is dropped on purpose and expands to nothing, so it is not reported.
+    const util = internals.util;
+    const predicateToTerm = util.predicateToTerm.bind(util);
+    util.predicateToTerm = (termContext, key) => {
+      const term = predicateToTerm(termContext, key);
+      // Only the job of the key's own value reports it, so checks made for values deeper down do not repeat it.
+      const ownKey = key === this.currentKey;
+      if (term === null && ownKey && typeof key === 'string' && !key.startsWith('@') && termContext.expandTerm(key, true, context.getExpandOptions())) {
+        listeners.droppedKey(key, this.currentPlace);
+      }
+      return term;
+    };
   }
 
   /** Waits for the jobs of the text written so far. */
@@ -63,9 +93,14 @@ class PlacedJsonLdParser extends JsonLdParser {
 
   override async newOnValueJob(keys: JsonKey[], value: unknown, depth: number, lastDepthCheck: boolean): Promise<void> {
     const place = this.nodeAround(keys, depth);
+    let key = depth;
+    while (key > 0 && typeof keys[key] === 'number') key--;
+    const ownKey = keys[key];
     this.currentPlace = place;
+    this.currentKey = ownKey;
     await super.newOnValueJob(keys, value, depth, lastDepthCheck);
     this.currentPlace = place;
+    this.currentKey = ownKey;
   }
 
   override async flushBuffer(depth: number, keys: JsonKey[]): Promise<void> {
@@ -128,6 +163,7 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
   const places = new JsonPlaces();
   const loader = new LocalContextLoader(options.contexts ?? new Map());
   let failure: Failure | undefined;
+  const droppedKeys = new Set<string>();
   const parser = new PlacedJsonLdParser(
     {
       baseIRI: options.baseIri ?? defaultBaseIri(file, cwd),
@@ -135,8 +171,16 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
       documentLoader: loader,
     },
     places,
-    (quad, place) => {
-      if (failure === undefined) addQuad(source, quad, { line: place.line, column: place.column, objectLine: place.line });
+    {
+      quad: (quad, place) => {
+        if (failure === undefined) addQuad(source, quad, { line: place.line, column: place.column, objectLine: place.line });
+      },
+      droppedKey: (key, place) => {
+        const seen = `${key} ${place.line} ${place.column}`;
+        if (failure !== undefined || droppedKeys.has(seen)) return;
+        droppedKeys.add(seen);
+        (source.warnings ??= []).push(droppedKeyWarning(file, key, place));
+      },
     },
   );
   const fail = (error: unknown): void => {
@@ -200,6 +244,22 @@ function failureError(file: string, failure: Failure): InputError {
     column: failure.place.column,
     message: `${failure.message}. The rest of the file was not read.`,
     hint: failure.hint,
+  };
+}
+
+/** The warning for a key whose value JSON-LD drops because the key maps to no IRI. */
+function droppedKeyWarning(file: string, key: string, place: LineColumn): InputError {
+  const blank = key.startsWith('_:');
+  return {
+    file,
+    line: place.line,
+    column: place.column,
+    message: blank
+      ? `the key "${key}" of this node object is a blank node, which RDF 1.1 allows no predicate to be; its value was not read`
+      : `the key "${key}" of this node object maps to no IRI through the context, so JSON-LD drops its value; it was not read`,
+    hint: blank
+      ? 'use an IRI for the property'
+      : `map the key in "@context" (such as "${key}": "https://data.northvale-rail.example/def/${key}") or set "@vocab"; map it to null to leave it out on purpose`,
   };
 }
 

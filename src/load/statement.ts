@@ -62,6 +62,8 @@ export interface LoadedSource {
   format: RdfFormat;
   statements: Statement[];
   errors: InputError[];
+  /** Problems that leave the source readable (a JSON-LD key that states nothing); they do not change the exit code. */
+  warnings?: InputError[];
   allowComments: AllowComment[];
   /** Prefixes declared in the source, prefix → namespace IRI. */
   prefixes: Record<string, string>;

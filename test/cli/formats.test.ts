@@ -95,4 +95,16 @@ describe('isapart check on JSON-LD', () => {
     expect(report.inputErrors[0].message).toContain(`<${CONTEXT_IRI}> is remote`);
     expect(result.err).toContain(`graph.jsonld:1:1: error: the JSON-LD context <${CONTEXT_IRI}> is remote`);
   });
+
+  it('names a key that maps to no IRI in an input warning, which leaves the exit code alone', async () => {
+    const text = `{ "@id": "${NV}Bogie", "${RDFS}subClassOf": { "@id": "${NV}Component" }, "depotName": "North" }\n`;
+    const dir = folderWith({ 'graph.jsonld': text });
+    const result = await runCli(dir, ['check', 'graph.jsonld', '-f', 'json', '--root', `${NV}Component`]);
+    expect(result.code).toBe(0);
+    const report = JSON.parse(result.out);
+    expect(report.inputErrors).toEqual([]);
+    expect(report.inputWarnings).toEqual([
+      expect.objectContaining({ file: 'graph.jsonld', line: 1, column: 1, message: expect.stringContaining('the key "depotName" of this node object maps to no IRI') }),
+    ]);
+  });
 });

@@ -232,3 +232,27 @@ describe('JSON-LD contexts', () => {
     expect(source.statements).toHaveLength(1);
   });
 });
+
+describe('parseJsonLd keys that state nothing', () => {
+  it('warns once per key and node object, at that object, for a key with no IRI and a blank node key; not for a key mapped to null', async () => {
+    const text = [
+      '{',
+      `  "@context": { "nv": "${NV}", "internalNote": null },`,
+      '  "@graph": [',
+      '    { "@id": "nv:A", "nv:partOf": { "@id": "nv:B" }, "depotName": "North", "internalNote": "x", "_:p": 2, "extra": { "nv:x": 1 } },',
+      '    { "@id": "nv:C", "depotName": ["South", "East"] }',
+      '  ]',
+      '}',
+    ].join('\n');
+    const source = await parseJsonLd(textChunks(text), 'a.jsonld');
+    expect(source.errors).toEqual([]);
+    expect(source.statements).toHaveLength(1);
+    expect((source.warnings ?? []).map((warning) => [warning.line, warning.column, warning.message.split('"')[1]])).toEqual([
+      [4, 5, 'depotName'],
+      [4, 5, '_:p'],
+      [4, 5, 'extra'],
+      [5, 5, 'depotName'],
+    ]);
+    expect(source.warnings?.[0].hint).toContain('"@vocab"');
+  });
+});
