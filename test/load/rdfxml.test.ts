@@ -1,6 +1,7 @@
 // parseRdfXml: statements placed at the element that states them, chunks, base IRIs, blank nodes, errors.
+import net from 'node:net';
 import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { blankNodeLabelPrefix } from '../../src/load/parse.js';
 import { textChunks } from '../../src/load/parse-any.js';
 import { parseRdfXml } from '../../src/load/rdfxml.js';
@@ -168,5 +169,50 @@ describe('parseRdfXml allow comments', () => {
       { file: 'a.rdf', line: 3, column: text.split('\n')[2].indexOf('<!--') + 1, ruleId: 'orphan-class', reason: 'top of the fleet', ownLine: false },
       { file: 'a.rdf', line: 4, column: 3, ruleId: 'kind-and-part', reason: 'sold as a kit', ownLine: true },
     ]);
+  });
+});
+
+describe('parseRdfXml on a long document in many chunks', () => {
+  it('reads every statement of 20,000 elements fed in 4 KiB chunks, each placed on its own line', async () => {
+    const count = 20_000;
+    async function* generated() {
+      yield `<?xml version="1.0"?>\n<rdf:RDF xmlns:rdf="${RDF_NS}" xmlns:rdfs="${RDFS}">\n`;
+      let pending = '';
+      for (let index = 0; index < count; index++) {
+        pending += `  <rdf:Description rdf:about="${NV}Part${index}"><rdfs:subClassOf rdf:resource="${NV}Part${index >> 1}"/></rdf:Description>\n`;
+        while (pending.length >= 4096) {
+          yield pending.slice(0, 4096);
+          pending = pending.slice(4096);
+        }
+      }
+      yield `${pending}</rdf:RDF>\n`;
+    }
+    const source = await parseRdfXml(generated(), 'fleet/parts.rdf');
+    expect(source.errors).toEqual([]);
+    expect(source.statements).toHaveLength(count);
+    // Element N is on line N + 3; its property element starts after the node element's start tag.
+    const last = source.statements[count - 1];
+    expect(last).toMatchObject({ subject: `${NV}Part${count - 1}`, position: { line: count + 2 } });
+    expect(last.position.column).toBe(`  <rdf:Description rdf:about="${NV}Part${count - 1}">`.length + 1);
+  });
+});
+
+describe('parseRdfXml and the network', () => {
+  it('declares internal entities from a DOCTYPE and never fetches an external one', async () => {
+    const calls: string[] = [];
+    const refuse = (name: string) => () => {
+      calls.push(name);
+      throw new Error(`${name} was called`);
+    };
+    vi.spyOn(net.Socket.prototype, 'connect').mockImplementation(refuse('net.Socket.connect'));
+    vi.spyOn(globalThis, 'fetch').mockImplementation(refuse('fetch'));
+    try {
+      const text = `<?xml version="1.0"?>\n<!DOCTYPE rdf:RDF [\n  <!ENTITY nv "${NV}">\n  <!ENTITY remote SYSTEM "https://data.northvale-rail.example/entities.dtd">\n]>\n<rdf:RDF xmlns:rdf="${RDF_NS}" xmlns:rdfs="${RDFS}">\n  <rdf:Description rdf:about="&nv;Bogie"><rdfs:subClassOf rdf:resource="&nv;Component"/></rdf:Description>\n</rdf:RDF>\n`;
+      const source = await parseRdfXml(textChunks(text), 'a.rdf');
+      expect(calls).toEqual([]);
+      expect(source.statements).toMatchObject([{ subject: `${NV}Bogie`, object: `${NV}Component` }]);
+    } finally {
+      vi.restoreAllMocks();
+    }
   });
 });
