@@ -33,6 +33,8 @@ export interface CheckOptions {
   roots?: string[];
   /** Rule id → level, from --rule ID=LEVEL. */
   ruleLevels?: Record<string, string>;
+  /** The IRI relative IRIs in the sources resolve against (`--base`); default each file's `file://` URL. */
+  baseIri?: string;
   /** Whether the text format may colour its output. */
   color?: boolean;
   /** The command line as typed, for SARIF's invocation record. */
@@ -65,7 +67,8 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
+  const contexts = new Map(Object.entries(config.contexts));
+  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin, baseIri: options.baseIri, contexts });
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
@@ -77,6 +80,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
 
   const graph = buildHierarchyGraph(loaded.sources, roleMap, { prefixes: config.scope, roots: config.roots });
   const inputWarnings = [
+    ...loaded.sources.flatMap((source) => source.warnings ?? []),
     ...(graph.problems ?? []),
     ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
     ...nothingReadWarnings(loaded.sources),
@@ -151,7 +155,7 @@ function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; co
       line: 0,
       column: 0,
       message: `under this folder ${clauses.join('; ')}`,
-      hint: 'name a Turtle, TriG, N-Triples or N-Quads file on the command line to read it whatever its extension (its syntax is then told from its content)',
+      hint: 'name an RDF file on the command line to read it whatever its extension (an .xml file is then read as RDF/XML; any other syntax is told from its content)',
     },
   ];
 }

@@ -1,6 +1,7 @@
 // `isapart check`: normalise the options, run the library, write the report, return the exit code.
 import path from 'node:path';
 import { atOrAbove, check, exitCodeFor, parseRuleLevel, type FailOn } from '../check.js';
+import { iriProblem } from '../config/iri-check.js';
 import type { Finding, Level } from '../engine/finding.js';
 import { toHtml } from '../report/html/html.js';
 import { toJson } from '../report/json.js';
@@ -19,6 +20,7 @@ export interface CheckCommandOptions {
   rule?: string[];
   scope?: string[];
   root?: string[];
+  base?: string;
   failOn: FailOn;
   color: boolean;
   quiet?: boolean;
@@ -68,6 +70,11 @@ export async function runCheckCommand(
     terminal.err(`isapart: ${rules.error}\n`);
     return 2;
   }
+  const baseProblem = options.base === undefined ? undefined : iriProblem(options.base);
+  if (baseProblem !== undefined) {
+    terminal.err(`isapart: --base ${options.base}: not an absolute IRI: ${baseProblem}\n  hint: give the IRI the document's relative IRIs resolve against, such as https://data.northvale-rail.example/def/\n`);
+    return 2;
+  }
   const outputFile = options.output === undefined ? undefined : path.resolve(terminal.cwd, options.output);
   // Checked before linting, so a long run is not wasted on a report that cannot be written.
   const outputProblem = outputFile === undefined ? undefined : outputPathProblem(outputFile);
@@ -83,6 +90,7 @@ export async function runCheckCommand(
     presets: options.preset,
     scope: options.scope,
     roots: options.root,
+    baseIri: options.base,
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,

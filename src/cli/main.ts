@@ -13,18 +13,22 @@ Examples:
   $ isapart check data/ -f html -o report.html   a page to review in a browser: filters, and an
                                                  evidence diagram per finding (works offline)
   $ zcat dump.nt.gz | isapart check -            lint standard input (format sniffed)
+  $ isapart check vocab/assets.owl --base https://data.northvale-rail.example/def/
+                                                 lint RDF/XML whose relative IRIs need a base
   $ isapart check data/ --rule orphan-class=off --fail-on warning
   $ isapart check data/ --scope https://data.northvale-rail.example/ --root https://data.northvale-rail.example/def/Asset
 
 Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it;
             2 a usage, config or input error (other files are still linted and reported).
-Suppress one finding in a Turtle file with a comment at the end of the statement's line, or alone
-on the line above it:   # isapart-allow RULE-ID: reason
+Formats by extension: .ttl .trig .nt .nq, .rdf .owl (and .xml when named) as RDF/XML, .jsonld;
+each also as .gz. JSON-LD contexts are never fetched: map remote ones to files under contexts:.
+Suppress one finding with a comment at the end of the statement's line, or alone on the line above
+it:   # isapart-allow RULE-ID: reason      (RDF/XML: <!-- isapart-allow RULE-ID: reason -->)
 Config: the nearest isapart.yaml upward from the first path ('isapart init' writes a starter).`;
 
 const PROGRAM_HELP = `
 Start:
-  $ isapart check extract.ttl        lint a Turtle, TriG, N-Triples or N-Quads file (or a folder, or - for stdin)
+  $ isapart check extract.ttl        lint a Turtle, TriG, N-Triples, N-Quads, RDF/XML or JSON-LD file (a folder, - for stdin)
   $ isapart rules                    the rules, their levels and what each flags
   $ isapart explain kind-and-part    one rule's description with a flagged and a clean example
   $ isapart init                     write a commented starter isapart.yaml here
@@ -66,6 +70,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--rule <id=level>', "set a rule's level: error|warning|note|off (repeatable)", collect)
     .option('--scope <prefix>', 'an in-scope IRI prefix; only its nodes are reported (repeatable)', collect)
     .option('--root <iri>', 'a class allowed to have no superclass (repeatable)', collect)
+    .option('--base <iri>', "the IRI relative IRIs resolve against when a file sets none (xml:base, @base); default the file's file:// URL")
     .addOption(
       new Option('--fail-on <level>', 'lowest level that makes the exit code 1')
         .choices(['error', 'warning', 'note', 'never'])

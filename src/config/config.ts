@@ -30,6 +30,8 @@ export interface IsapartConfig {
   /** Absolute folders of extra rule files. */
   ruleDirs: string[];
   allow: AllowEntry[];
+  /** JSON-LD context IRI → absolute path of its local copy; no other remote context is read. */
+  contexts: Record<string, string>;
 }
 
 /** The presets applied when a config names none. */

@@ -21,6 +21,7 @@ import {
 } from './config-sections.js';
 import { iriProblem } from './iri-check.js';
 import { suggestionHint } from './nearest.js';
+import { readContexts } from './contexts-section.js';
 import {
   describeNode,
   isEmptyNode,
@@ -39,7 +40,7 @@ export const CONFIG_FILE_NAME = 'isapart.yaml';
 export const COMMAND_LINE_SOURCE = '<command line>';
 
 /** Every top-level key of isapart.yaml, in the order design.md lists them. */
-export const CONFIG_KEYS = ['presets', 'roles', 'scope', 'roots', 'rules', 'rule-dirs', 'allow'] as const;
+export const CONFIG_KEYS = ['presets', 'roles', 'scope', 'roots', 'rules', 'rule-dirs', 'allow', 'contexts'] as const;
 
 /** A config together with the problems found while reading it (any problem makes the run exit 2). */
 export interface ConfigResult {
@@ -57,7 +58,7 @@ export interface CommandLineOverrides {
 
 /** The config of a run without isapart.yaml: the default presets and nothing else. */
 export function emptyConfig(): IsapartConfig {
-  return { presets: [...DEFAULT_PRESETS], roles: {}, scope: [], roots: [], rules: {}, ruleLines: {}, ruleDirs: [], allow: [] };
+  return { presets: [...DEFAULT_PRESETS], roles: {}, scope: [], roots: [], rules: {}, ruleLines: {}, ruleDirs: [], allow: [], contexts: {} };
 }
 
 /** The nearest isapart.yaml in a folder, or in a file's folder, or in any folder above; stops at the root. */
@@ -126,6 +127,7 @@ const KEY_READERS: Record<Exclude<(typeof CONFIG_KEYS)[number], 'roles'>, (conte
   rules: readRules,
   'rule-dirs': readRuleDirs,
   allow: readAllow,
+  contexts: readContexts,
 };
 
 /** Reports predicates that the presets and `roles:` map two incompatible ways, at the `roles:` IRI. */

@@ -45,6 +45,12 @@ const STARTER_LINES = [
   '# with a reason for the next reader. In a Turtle file, `# isapart-allow RULE-ID: reason` does the same.',
   '# Example: allow: [{ rule: kind-and-part, focus: https://data.northvale-rail.example/def/Pantograph, reason: "the pantograph class also names the fitted assembly" }]',
   'allow: []',
+  '',
+  '# contexts: local copies of JSON-LD contexts, by the IRI documents name them with in "@context".',
+  '# isapart never fetches a remote context; a document whose context is neither mapped here nor a',
+  '# local file is an input error naming the IRI. Paths are relative to this file.',
+  '# Example: contexts: { "https://data.northvale-rail.example/context.jsonld": ./contexts/northvale.jsonld }',
+  'contexts: {}',
 ];
 
 /** The text of a commented starter isapart.yaml; it parses with no errors. */

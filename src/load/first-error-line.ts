@@ -1,11 +1,11 @@
 // How far n3 reads a text in one syntax before its first syntax error: the format sniffer's tie-breaker.
 import { DataFactory } from 'n3';
 import type * as RDF from '@rdfjs/types';
-import type { RdfFormat } from './statement.js';
+import type { N3Format } from './statement.js';
 import { createLexer, N3_FORMAT_NAME, parseWithTokens } from './n3-tokens.js';
 
 /** The 1-based line of the first syntax error n3 finds reading `text` as `format`; Infinity when it reads it all. */
-export function firstErrorLine(text: string, format: RdfFormat): number {
+export function firstErrorLine(text: string, format: N3Format): number {
   let errorLine = Number.POSITIVE_INFINITY;
   parseWithTokens(
     text,

@@ -1,69 +1,54 @@
 // Telling which RDF syntax a source is written in: by file extension, else by sniffing its first lines.
-import type { RdfFormat } from './statement.js';
+import type { N3Format, RdfFormat } from './statement.js';
 import { firstErrorLine } from './first-error-line.js';
 
-/** The file extensions isapart reads, each also accepted with a trailing `.gz`. */
-export const RDF_EXTENSIONS: readonly string[] = Object.freeze(['.ttl', '.trig', '.nt', '.nq']);
+/** The file extensions read inside folders, each also accepted with a trailing `.gz`. */
+export const RDF_EXTENSIONS: readonly string[] = Object.freeze(['.ttl', '.trig', '.nt', '.nq', '.rdf', '.owl', '.jsonld']);
 
+/**
+ * The syntax of each extension. `.xml` is read as RDF/XML only when a file is named on the command
+ * line: most XML files in a project folder (build files, editor settings) are not RDF.
+ */
 const FORMAT_OF_EXTENSION: Readonly<Record<string, RdfFormat>> = Object.freeze({
   '.ttl': 'turtle',
   '.trig': 'trig',
   '.nt': 'n-triples',
   '.nq': 'n-quads',
+  '.rdf': 'rdf-xml',
+  '.owl': 'rdf-xml',
+  '.xml': 'rdf-xml',
+  '.jsonld': 'json-ld',
 });
-
-/** An RDF syntax that isapart recognises but does not read. */
-export type UnreadSyntax = 'RDF/XML' | 'JSON-LD';
-
-const UNREAD_SYNTAX_OF_EXTENSION: Readonly<Record<string, UnreadSyntax>> = Object.freeze({
-  '.rdf': 'RDF/XML',
-  '.owl': 'RDF/XML',
-  '.xml': 'RDF/XML',
-  '.jsonld': 'JSON-LD',
-});
-
-/** An unread syntax and what gave it away, as a clause such as `its name ends in .owl`. */
-export interface UnreadSyntaxSign {
-  syntax: UnreadSyntax;
-  sign: string;
-}
 
 /** How many characters of a source's start are enough to sniff its syntax. */
 export const SNIFF_LENGTH = 64 * 1024;
 
-/** The format named by a file's extension (`.ttl`, `.ttl.gz`, ...), or undefined for any other name. */
+/** The format named by a file's extension (`.ttl`, `.ttl.gz`, `.owl`, ...), or undefined for any other name. */
 export function formatFromExtension(fileName: string): RdfFormat | undefined {
   return FORMAT_OF_EXTENSION[extensionOf(fileName)];
 }
 
-/**
- * The format of a source: by its extension, or for `-` and unknown extensions by its content.
- * Returns undefined when the content does not look like any RDF syntax isapart reads, and for the
- * extensions of syntaxes it does not read (see `detectUnreadSyntax`).
- */
-export function detectFormat(fileName: string, head: string): RdfFormat | undefined {
-  const extension = extensionOf(fileName);
-  if (UNREAD_SYNTAX_OF_EXTENSION[extension] !== undefined) return undefined;
-  return FORMAT_OF_EXTENSION[extension] ?? sniffFormat(head);
+/** Whether a folder walk reads a file of this name (its extension is one of `RDF_EXTENSIONS`, maybe with `.gz`). */
+export function isReadInFolders(fileName: string): boolean {
+  return RDF_EXTENSIONS.includes(extensionOf(fileName));
 }
 
 /**
- * Whether a source is in RDF/XML or JSON-LD, by its extension (`.rdf`, `.owl`, `.xml`, `.jsonld`,
- * each also with `.gz`) or, when its extension is none of isapart's, by how its text starts.
+ * The format of a source: by its extension, or for `-` and unknown extensions by its content.
+ * Returns undefined when the content does not look like any RDF syntax isapart reads.
  */
-export function detectUnreadSyntax(fileName: string, head: string): UnreadSyntaxSign | undefined {
-  const extension = extensionOf(fileName);
-  const byExtension = UNREAD_SYNTAX_OF_EXTENSION[extension];
-  if (byExtension !== undefined) {
-    const gzip = fileName.toLowerCase().endsWith('.gz') ? '.gz' : '';
-    return { syntax: byExtension, sign: `its name ends in ${extension}${gzip}` };
-  }
-  if (FORMAT_OF_EXTENSION[extension] !== undefined) return undefined;
+export function detectFormat(fileName: string, head: string): RdfFormat | undefined {
+  return FORMAT_OF_EXTENSION[extensionOf(fileName)] ?? sniffMarkupFormat(head) ?? sniffFormat(head);
+}
+
+/**
+ * RDF/XML when a text starts as an XML document does, JSON-LD when it is a JSON object (or array
+ * of objects) with one of JSON-LD's keywords as a key; otherwise undefined.
+ */
+export function sniffMarkupFormat(head: string): RdfFormat | undefined {
   const start = head.trimStart();
-  const xmlStart = XML_START.exec(start);
-  if (xmlStart) return { syntax: 'RDF/XML', sign: `it starts as XML does, with ${xmlStart[0].split(/\s/)[0]}` };
-  const keyword = JSON_START.test(start) ? JSON_LD_KEYWORD.exec(head) : null;
-  if (keyword) return { syntax: 'JSON-LD', sign: `it is JSON with the key "${keyword[1]}"` };
+  if (XML_START.test(start)) return 'rdf-xml';
+  if (JSON_START.test(start) && JSON_LD_KEYWORD.test(head)) return 'json-ld';
   return undefined;
 }
 
@@ -107,12 +92,13 @@ const QUOTED_STRING_OF_TURTLE = /"{3}|'/;
 const STATEMENT_OF_IRIS = new RegExp(`^\\s*<${IRI_CHARACTERS}>\\s*<${IRI_CHARACTERS}>`, 'm');
 
 /**
- * Guesses the syntax of a source from its first complete lines; undefined when it is none of ours.
+ * Guesses which of n3's syntaxes a source is in from its first complete lines; undefined when it
+ * is none of them (XML and JSON are left to `sniffMarkupFormat`).
  * When only some lines have the shape of N-Triples or N-Quads lines (one bad line in a dump, or
  * Turtle written partly line by line), the syntax whose parser reads further into them wins, and on
  * a tie the shape most lines have, so a bad line is reported by the parser of the file's own syntax.
  */
-export function sniffFormat(head: string): RdfFormat | undefined {
+export function sniffFormat(head: string): N3Format | undefined {
   const start = head.trimStart();
   // XML and JSON hold characters the signs below would take for Turtle's.
   if (XML_START.test(start) || JSON_START.test(start)) return undefined;
@@ -128,7 +114,7 @@ export function sniffFormat(head: string): RdfFormat | undefined {
   }
   const lineShaped = tripleLines + quadLines;
   // A quad line is N-Quads only: neither Turtle nor TriG has a statement of four terms.
-  const lineFormat: RdfFormat = quadLines > 0 ? 'n-quads' : 'n-triples';
+  const lineFormat: N3Format = quadLines > 0 ? 'n-quads' : 'n-triples';
   if (lineShaped === lines.length) return lineFormat;
   const mostlyLineShaped = lineShaped * 2 >= lines.length;
   const bySigns = formatBySigns(lines, head);
@@ -142,7 +128,7 @@ export function sniffFormat(head: string): RdfFormat | undefined {
 }
 
 /** TriG when a graph block shows, Turtle when a sign of Turtle does, else undefined. */
-function formatBySigns(lines: string[], head: string): RdfFormat | undefined {
+function formatBySigns(lines: string[], head: string): N3Format | undefined {
   const scrubbed = scrubTerms(lines.join('\n'));
   if (scrubbed.includes('{')) return 'trig';
   const turtle =

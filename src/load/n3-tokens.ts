@@ -2,10 +2,10 @@
 import type { EventEmitter } from 'node:events';
 import { Lexer, Parser, type Token, type TokenCallback } from 'n3';
 import type * as RDF from '@rdfjs/types';
-import type { RdfFormat } from './statement.js';
+import type { N3Format } from './statement.js';
 
 /** The name n3's parser takes for each syntax. */
-export const N3_FORMAT_NAME: Readonly<Record<RdfFormat, string>> = Object.freeze({
+export const N3_FORMAT_NAME: Readonly<Record<N3Format, string>> = Object.freeze({
   turtle: 'Turtle',
   trig: 'TriG',
   'n-triples': 'N-Triples',

@@ -4,7 +4,7 @@ import { relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type * as RDF from '@rdfjs/types';
 import { Literal as N3Literal } from 'n3';
-import type { InputError, Literal, LoadedSource, RdfFormat, Statement } from './statement.js';
+import type { InputError, Literal, LoadedSource, N3Format, Statement } from './statement.js';
 import { createLexer, N3_FORMAT_NAME, parseWithTokens, type N3Token } from './n3-tokens.js';
 import { TermPositions } from './term-positions.js';
 import { formatName, toInputError } from './syntax-error.js';
@@ -25,7 +25,7 @@ export const STDIN_FILE = '<stdin>';
  * Parses one source synchronously. On a syntax error it keeps every statement read before it and
  * records one InputError, since n3 cannot resume after an error.
  */
-export function parseSource(text: string, file: string, format: RdfFormat, options: ParseOptions = {}): LoadedSource {
+export function parseSource(text: string, file: string, format: N3Format, options: ParseOptions = {}): LoadedSource {
   const source: LoadedSource = { file, format, statements: [], errors: [], allowComments: [], prefixes: {} };
   const input = text.startsWith('\ufeff') ? text.slice(1) : text;
   const cwd = options.cwd ?? process.cwd();
@@ -121,13 +121,13 @@ function addStatement(source: LoadedSource, quad: RDF.Quad, positions: TermPosit
 }
 
 /** A literal's parts; n3's `datatypeString` gives the datatype IRI without making a term for it. */
-function literalOf(literal: RDF.Literal): Literal {
+export function literalOf(literal: RDF.Literal): Literal {
   const datatype = literal instanceof N3Literal ? literal.datatypeString : literal.datatype.value;
   return { value: literal.value, datatype, language: literal.language };
 }
 
 /** An IRI as itself, a blank node as `_:label`. */
-function termText(term: RDF.Term): string {
+export function termText(term: RDF.Term): string {
   return term.termType === 'BlankNode' ? `_:${term.value}` : term.value;
 }
 

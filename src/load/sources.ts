@@ -3,8 +3,10 @@ import { readFile, stat } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { InputError, LoadResult, RdfFormat } from './statement.js';
-import { detectFormat, detectUnreadSyntax, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
-import { parseSource, STDIN_FILE } from './parse.js';
+import { detectFormat, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
+import { STDIN_FILE } from './parse.js';
+import { parseAnySource, textChunks } from './parse-any.js';
+import type { ContextMap } from './jsonld-contexts.js';
 import { toSourceText } from './source-text.js';
 import { joinShown, listRdfFiles } from './walk.js';
 
@@ -14,7 +16,14 @@ export interface LoadOptions {
   cwd?: string;
   /** What `-` reads; default the process's standard input. */
   stdin?: NodeJS.ReadableStream;
+  /** The IRI relative IRIs resolve against (`--base`); default each file's `file://` URL. */
+  baseIri?: string;
+  /** JSON-LD context IRI → absolute path of a local copy (`contexts:` in isapart.yaml). */
+  contexts?: ContextMap;
 }
+
+/** What parsing needs besides the text: the folder of the run, the base IRI and the local contexts. */
+type ParseSettings = Pick<LoadOptions, 'baseIri' | 'contexts'> & { cwd: string };
 
 /** A LoadResult that also names what inside given folders was left out of the run. */
 export interface LoadResultWithSkipped extends LoadResult {
@@ -29,6 +38,7 @@ interface FileToRead {
 }
 
 const EXTENSION_LIST = RDF_EXTENSIONS.join(', ');
+const SYNTAX_LIST = 'Turtle, TriG, N-Triples, N-Quads, RDF/XML or JSON-LD';
 
 /**
  * Reads every path in order: a file, a folder (its RDF files, recursively and sorted) or `-` for
@@ -36,20 +46,21 @@ const EXTENSION_LIST = RDF_EXTENSIONS.join(', ');
  */
 export async function loadSources(paths: string[], options: LoadOptions = {}): Promise<LoadResultWithSkipped> {
   const cwd = options.cwd ?? process.cwd();
+  const settings: ParseSettings = { cwd, baseIri: options.baseIri, contexts: options.contexts };
   const result: LoadResultWithSkipped = { sources: [], errors: [], skippedFiles: [] };
   const seen = new Set<string>();
   for (const path of paths) {
     if (path === '-') {
       if (seen.has(STDIN_FILE)) continue;
       seen.add(STDIN_FILE);
-      await loadStdin({ stdin: options.stdin ?? process.stdin, cwd }, result);
+      await loadStdin({ stdin: options.stdin ?? process.stdin, settings }, result);
       continue;
     }
     for (const file of await filesOfPath(path, cwd, result)) {
       // A file named twice, or inside a folder also given, is read once.
       if (seen.has(file.absolutePath)) continue;
       seen.add(file.absolutePath);
-      await loadFile({ ...file, cwd }, result);
+      await loadFile({ ...file, settings }, result);
     }
   }
   return result;
@@ -85,7 +96,7 @@ async function filesOfPath(path: string, cwd: string, result: LoadResultWithSkip
 }
 
 /** Reads, decodes and parses one file into the result. */
-async function loadFile(file: FileToRead & { cwd: string }, result: LoadResultWithSkipped): Promise<void> {
+async function loadFile(file: FileToRead & { settings: ParseSettings }, result: LoadResultWithSkipped): Promise<void> {
   let bytes: Uint8Array;
   try {
     bytes = await readFile(file.absolutePath);
@@ -99,12 +110,12 @@ async function loadFile(file: FileToRead & { cwd: string }, result: LoadResultWi
     });
     return;
   }
-  await parseBytes({ bytes, file: file.shownAs, baseIri: pathToFileURL(file.absolutePath).href, cwd: file.cwd }, result);
+  await parseBytes({ bytes, file: file.shownAs, baseIri: file.settings.baseIri ?? pathToFileURL(file.absolutePath).href, settings: file.settings }, result);
 }
 
 /** Reads standard input to its end and parses it as the source `<stdin>`. */
-async function loadStdin(input: { stdin: NodeJS.ReadableStream; cwd: string }, result: LoadResultWithSkipped): Promise<void> {
-  const { stdin, cwd } = input;
+async function loadStdin(input: { stdin: NodeJS.ReadableStream; settings: ParseSettings }, result: LoadResultWithSkipped): Promise<void> {
+  const { stdin, settings } = input;
   const chunks: Buffer[] = [];
   try {
     for await (const chunk of stdin) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : chunk);
@@ -118,12 +129,12 @@ async function loadStdin(input: { stdin: NodeJS.ReadableStream; cwd: string }, r
     });
     return;
   }
-  await parseBytes({ bytes: Buffer.concat(chunks), file: STDIN_FILE, baseIri: 'file:///dev/stdin', cwd }, result);
+  await parseBytes({ bytes: Buffer.concat(chunks), file: STDIN_FILE, baseIri: settings.baseIri ?? 'file:///dev/stdin', settings }, result);
 }
 
 /** Decodes a source's bytes, works out its format and parses it into the result. */
 async function parseBytes(
-  source: { bytes: Uint8Array; file: string; baseIri: string; cwd: string },
+  source: { bytes: Uint8Array; file: string; baseIri: string; settings: ParseSettings },
   result: LoadResultWithSkipped,
 ): Promise<void> {
   const decoded = await toSourceText(source.bytes, source.file);
@@ -135,28 +146,16 @@ async function parseBytes(
   const head = decoded.text.slice(0, SNIFF_LENGTH);
   const format: RdfFormat | undefined = detectFormat(nameForFormat, head);
   if (format === undefined) {
-    result.errors.push(unknownSyntaxError(source.file, head));
+    result.errors.push(unknownSyntaxError(source.file));
     return;
   }
-  result.sources.push(parseSource(decoded.text, source.file, format, { baseIri: source.baseIri, cwd: source.cwd }));
+  const { cwd, contexts } = source.settings;
+  result.sources.push(await parseAnySource(textChunks(decoded.text), source.file, format, { baseIri: source.baseIri, cwd, contexts }));
 }
 
-/** The error for a source in a syntax isapart does not read, or whose syntax cannot be told at all. */
-function unknownSyntaxError(file: string, head: string): InputError {
+/** The error for a source whose syntax cannot be told from its name or content. */
+function unknownSyntaxError(file: string): InputError {
   const isStdin = file === STDIN_FILE;
-  const unread = detectUnreadSyntax(isStdin ? '-' : file, head);
-  if (unread !== undefined) {
-    const convert = 'convert it to Turtle or N-Triples first, with an RDF converter of your choice,';
-    return {
-      file,
-      line: 0,
-      column: 0,
-      message: `${unread.syntax} is not read by isapart: ${isStdin ? 'standard input' : file} was not read (${unread.sign}).`,
-      hint: isStdin
-        ? `${convert} and pipe the result in`
-        : `${convert} and lint the converted file; if it already holds Turtle, N-Triples, N-Quads or TriG, name it with one of the extensions ${EXTENSION_LIST}`,
-    };
-  }
   return {
     file,
     line: 0,
@@ -165,8 +164,8 @@ function unknownSyntaxError(file: string, head: string): InputError {
       ? 'The syntax of standard input could not be told from its content; it was not read.'
       : `The syntax of ${file} could not be told from its name or its content; it was not read.`,
     hint: isStdin
-      ? `standard input has no name to tell its syntax by, only its first lines: check that what is piped in is Turtle, TriG, N-Triples or N-Quads, or save it to a file ending in ${EXTENSION_LIST} and lint that file`
-      : `name the file with one of the extensions ${EXTENSION_LIST} (or the same with .gz), or check that it holds Turtle, TriG, N-Triples or N-Quads`,
+      ? `standard input has no name to tell its syntax by, only its start: check that what is piped in is ${SYNTAX_LIST}, or save it to a file ending in ${EXTENSION_LIST} and lint that file`
+      : `name the file with one of the extensions ${EXTENSION_LIST} (or the same with .gz), or check that it holds ${SYNTAX_LIST}`,
   };
 }
 

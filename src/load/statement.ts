@@ -50,8 +50,11 @@ export interface AllowComment {
   ownLine: boolean;
 }
 
+/** The RDF syntaxes that n3's parser reads. */
+export type N3Format = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
+
 /** The RDF syntaxes isapart reads. */
-export type RdfFormat = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
+export type RdfFormat = N3Format | 'rdf-xml' | 'json-ld';
 
 /** Everything read from one source (a file, or stdin as file '<stdin>'). */
 export interface LoadedSource {
@@ -59,6 +62,8 @@ export interface LoadedSource {
   format: RdfFormat;
   statements: Statement[];
   errors: InputError[];
+  /** Problems that leave the source readable (a JSON-LD key that states nothing); they do not change the exit code. */
+  warnings?: InputError[];
   allowComments: AllowComment[];
   /** Prefixes declared in the source, prefix → namespace IRI. */
   prefixes: Record<string, string>;

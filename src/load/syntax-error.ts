@@ -1,24 +1,24 @@
 // Turning an n3 syntax error into an InputError that says what was found, what was expected, and how to fix it.
-import type { InputError, RdfFormat } from './statement.js';
+import type { InputError, N3Format, RdfFormat } from './statement.js';
 import type { N3ErrorContext, N3Token } from './n3-tokens.js';
 
 /** What the loader knows when n3 stops with a syntax error. */
 export interface SyntaxErrorSite {
   file: string;
-  format: RdfFormat;
+  format: N3Format;
   text: string;
   error: Error & { context?: N3ErrorContext };
 }
 
 interface ErrorKind {
   pattern: RegExp;
-  expected: (match: RegExpMatchArray, format: RdfFormat) => string;
-  hint: (match: RegExpMatchArray, format: RdfFormat) => string;
+  expected: (match: RegExpMatchArray, format: N3Format) => string;
+  hint: (match: RegExpMatchArray, format: N3Format) => string;
 }
 
-const isLineBased = (format: RdfFormat): boolean => format === 'n-triples' || format === 'n-quads';
+const isLineBased = (format: N3Format): boolean => format === 'n-triples' || format === 'n-quads';
 
-const STATEMENT_END_HINT = (format: RdfFormat): string =>
+const STATEMENT_END_HINT = (format: N3Format): string =>
   isLineBased(format)
     ? 'each line holds one statement: subject, predicate, object' +
       (format === 'n-quads' ? ', optional graph,' : '') +
@@ -105,7 +105,7 @@ const ERROR_KINDS: readonly ErrorKind[] = [
 ];
 
 /** A hint for text the lexer could not read as any token. */
-function lexicalHint(found: string, format: RdfFormat): string {
+function lexicalHint(found: string, format: N3Format): string {
   if (found.startsWith('<')) return IRI_HINT;
   if (found.startsWith('"') || found.startsWith("'")) {
     return 'check that the string is closed on the same line (or uses """...""") and that its \\ escapes are valid';
@@ -150,7 +150,15 @@ export function toInputError(site: SyntaxErrorSite): InputError {
 
 /** The readable name of a format. */
 export function formatName(format: RdfFormat): string {
-  return { turtle: 'Turtle', trig: 'TriG', 'n-triples': 'N-Triples', 'n-quads': 'N-Quads' }[format];
+  const names: Record<RdfFormat, string> = {
+    turtle: 'Turtle',
+    trig: 'TriG',
+    'n-triples': 'N-Triples',
+    'n-quads': 'N-Quads',
+    'rdf-xml': 'RDF/XML',
+    'json-ld': 'JSON-LD',
+  };
+  return names[format];
 }
 
 /** A short description of a token for a message. */

@@ -2,7 +2,7 @@
 import { readdir, realpath, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { InputError } from './statement.js';
-import { formatFromExtension } from './format.js';
+import { isReadInFolders } from './format.js';
 
 /** The RDF files found under a folder, as `/`-separated paths relative to it, and what could not be read. */
 export interface FolderListing {
@@ -53,7 +53,7 @@ export async function listRdfFiles(folder: string, shownAs: string): Promise<Fol
         if (visitedFolders.has(real)) continue;
         visitedFolders.add(real);
         pending.push(relativePath);
-      } else if (formatFromExtension(entry.name) !== undefined) {
+      } else if (isReadInFolders(entry.name)) {
         listing.files.push(relativePath);
       } else {
         listing.skippedFiles.push(relativePath);

@@ -15,12 +15,15 @@ export const FINGERPRINT_KEY = 'isapart/v1';
 /** The uriBaseId that relative artifact URIs resolve against: the folder the run started in. */
 export const PROJECT_ROOT_BASE_ID = 'PROJECTROOT';
 
-// Registered media types of the RDF syntaxes (W3C RDF 1.1 Turtle, TriG, N-Triples, N-Quads, their IANA sections).
+// Registered media types of the RDF syntaxes (W3C RDF 1.1 Turtle, TriG, N-Triples, N-Quads, RDF/XML and
+// JSON-LD 1.1, their IANA sections; from memory).
 const MEDIA_TYPES: Record<RdfFormat, string> = {
   turtle: 'text/turtle',
   trig: 'application/trig',
   'n-triples': 'application/n-triples',
   'n-quads': 'application/n-quads',
+  'rdf-xml': 'application/rdf+xml',
+  'json-ld': 'application/ld+json',
 };
 
 // Notification descriptors of the driver, in this order (notifications refer to them by index).

@@ -89,7 +89,7 @@ describe('files a folder holds that are not read', () => {
     const dir = folderWith({
       'data/assets.ttl': CYCLE_AND_ORPHAN,
       'data/README.md': '# notes',
-      'data/extra/assets.owl': '<?xml version="1.0"?>',
+      'data/extra/build.xml': '<?xml version="1.0"?><project/>',
       'data/isapart.yaml': `scope: [${NV}]\n`,
     });
     const result = await run(dir, ['check', 'data', '-f', 'json']);
@@ -100,8 +100,9 @@ describe('files a folder holds that are not read', () => {
         file: 'data',
         line: 0,
         column: 0,
-        message: 'under this folder 2 files were not read, as their names do not end in .ttl, .trig, .nt, .nq (or those with .gz): README.md, extra/assets.owl',
-        hint: 'name a Turtle, TriG, N-Triples or N-Quads file on the command line to read it whatever its extension (its syntax is then told from its content)',
+        message:
+          'under this folder 2 files were not read, as their names do not end in .ttl, .trig, .nt, .nq, .rdf, .owl, .jsonld (or those with .gz): README.md, extra/build.xml',
+        hint: 'name an RDF file on the command line to read it whatever its extension (an .xml file is then read as RDF/XML; any other syntax is told from its content)',
       },
     ]);
   });
@@ -110,7 +111,7 @@ describe('files a folder holds that are not read', () => {
     const dir = folderWith({ 'data/assets.ttl': CYCLE_AND_ORPHAN, 'data/.git/config.ttl': CYCLE_AND_ORPHAN, 'data/notes.txt': 'x' });
     const result = await run(dir, ['check', 'data', '-f', 'json']);
     expect(JSON.parse(result.out).inputWarnings[0].message).toBe(
-      'under this folder 1 file was not read, as its name does not end in .ttl, .trig, .nt, .nq (or those with .gz): notes.txt; 1 folder was not walked (hidden folders and node_modules): .git/',
+      'under this folder 1 file was not read, as its name does not end in .ttl, .trig, .nt, .nq, .rdf, .owl, .jsonld (or those with .gz): notes.txt; 1 folder was not walked (hidden folders and node_modules): .git/',
     );
   });
 

@@ -114,7 +114,7 @@ describe('loadConfig', () => {
 describe('emptyConfig', () => {
   it('has the default presets and nothing else, fresh on every call', () => {
     const config = emptyConfig();
-    expect(config).toEqual({ presets: ['rdfs', 'owl', 'dcterms', 'schema', 'obo'], roles: {}, scope: [], roots: [], rules: {}, ruleLines: {}, ruleDirs: [], allow: [] });
+    expect(config).toEqual({ presets: ['rdfs', 'owl', 'dcterms', 'schema', 'obo'], roles: {}, scope: [], roots: [], rules: {}, ruleLines: {}, ruleDirs: [], allow: [], contexts: {} });
     config.presets.push('skos');
     expect(emptyConfig().presets).not.toContain('skos');
   });

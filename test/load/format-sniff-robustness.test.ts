@@ -15,7 +15,7 @@ const quad = (subject: string, object: string) => `<${NV}${subject}> <${SUBCLASS
 /** Parses text as the sniffer says, as if it came through stdin. */
 function sniffAndParse(text: string) {
   const format = detectFormat('-', text);
-  if (format === undefined) throw new Error('the sniffer gave no format');
+  if (format === undefined || format === 'rdf-xml' || format === 'json-ld') throw new Error(`the sniffer gave ${format ?? 'no format'}, not one of n3's`);
   return { format, source: parseSource(text, '<stdin>', format) };
 }
 

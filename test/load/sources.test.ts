@@ -185,7 +185,7 @@ describe('loadSources on stdin', () => {
     expect(result.errors[0]).toMatchObject({ file: '<stdin>', line: 0, column: 0 });
     expect(result.errors[0].message).toBe('The syntax of standard input could not be told from its content; it was not read.');
     expect(result.errors[0].hint).toMatch(/^standard input has no name to tell its syntax by/);
-    expect(result.errors[0].hint).toContain('Turtle, TriG, N-Triples or N-Quads');
+    expect(result.errors[0].hint).toContain('Turtle, TriG, N-Triples, N-Quads, RDF/XML or JSON-LD');
     expect(result.errors[0].hint).not.toContain('name the file');
   });
 

@@ -3,14 +3,14 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { DataFactory, Parser, Store } from 'n3';
 import type * as RDF from '@rdfjs/types';
-import type { RdfFormat, Statement } from '../../src/load/statement.js';
+import type { N3Format, Statement } from '../../src/load/statement.js';
 
 const RDF_NS = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
 const MF = 'http://www.w3.org/2001/sw/DataAccess/tests/test-manifest#';
 const RDFT = 'http://www.w3.org/ns/rdftest#';
 
-/** The four suites the loader is held to, by folder under rdf/rdf11/. */
-export const SUITES: ReadonlyArray<{ folder: string; format: RdfFormat }> = [
+/** The four suites n3's parser is held to, by folder under rdf/rdf11/ (RDF/XML's is read on its own). */
+export const SUITES: ReadonlyArray<{ folder: string; format: N3Format }> = [
   { folder: 'rdf-turtle', format: 'turtle' },
   { folder: 'rdf-trig', format: 'trig' },
   { folder: 'rdf-n-triples', format: 'n-triples' },
@@ -25,7 +25,7 @@ export interface SuiteTest {
   name: string;
   kind: TestKind;
   actionPath: string;
-  /** The IRI the action's relative IRIs resolve against: mf:assumedTestBase + file name. */
+  /** The IRI the action's relative IRIs resolve against: mf:assumedTestBase + the action's path in the suite. */
   baseIri: string | undefined;
   resultPath: string | undefined;
 }
@@ -53,7 +53,8 @@ export function readManifest(folder: string): SuiteTest[] {
     const action = one(entry, `${MF}action`)?.value;
     if (!action) throw new Error(`${folder}: ${entry.value} has no mf:action`);
     const actionPath = fileURLToPath(action);
-    const actionName = actionPath.slice(actionPath.lastIndexOf('/') + 1);
+    // The action's path inside the suite folder (RDF/XML's tests sit in subfolders, the others' do not).
+    const actionName = actionPath.slice(suiteFolder(folder).length);
     const result = one(entry, `${MF}result`)?.value;
     tests.push({
       name: one(entry, `${MF}name`)?.value ?? entry.value,

@@ -7,7 +7,7 @@ import { runRules } from '../../src/engine/run.js';
 import { buildHierarchyGraph } from '../../src/graph/build.js';
 import type { HierarchyGraph, ScopeOptions } from '../../src/graph/hierarchy-graph.js';
 import { parseSource } from '../../src/load/parse.js';
-import type { LoadedSource, RdfFormat } from '../../src/load/statement.js';
+import type { LoadedSource, N3Format } from '../../src/load/statement.js';
 import { buildRoleMap } from '../../src/roles/role-map.js';
 import type { Role } from '../../src/roles/role.js';
 
@@ -15,7 +15,7 @@ import type { Role } from '../../src/roles/role.js';
 export interface SourceText {
   text: string;
   file: string;
-  format: RdfFormat;
+  format: N3Format;
 }
 
 /** What to lint and how: the rules run at their own levels. */

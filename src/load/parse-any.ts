@@ -1,0 +1,28 @@
+// Choosing the parser for a source's syntax: n3 for Turtle, TriG, N-Triples and N-Quads, the streaming parsers for RDF/XML and JSON-LD.
+import type { LoadedSource, RdfFormat } from './statement.js';
+import { parseSource } from './parse.js';
+import { parseRdfXml } from './rdfxml.js';
+import { parseJsonLd, type JsonLdParseOptions } from './jsonld.js';
+
+/** Options of `parseAnySource`: the base IRI, the run folder and JSON-LD's local contexts. */
+export type SourceParseOptions = JsonLdParseOptions;
+
+/** Parses one source, given as text chunks, with the parser of its syntax. */
+export async function parseAnySource(
+  chunks: AsyncIterable<string>,
+  file: string,
+  format: RdfFormat,
+  options: SourceParseOptions = {},
+): Promise<LoadedSource> {
+  if (format === 'rdf-xml') return parseRdfXml(chunks, file, options);
+  if (format === 'json-ld') return parseJsonLd(chunks, file, options);
+  // n3's parser is given the whole text: its tokens carry the positions the statements keep.
+  let text = '';
+  for await (const chunk of chunks) text += chunk;
+  return parseSource(text, file, format, options);
+}
+
+/** A whole text as the chunks the streaming parsers take. */
+export async function* textChunks(text: string): AsyncGenerator<string> {
+  yield text;
+}
