@@ -14,7 +14,7 @@ import { buildHierarchyGraph } from './graph/build.js';
 import type { HierarchyGraph } from './graph/hierarchy-graph.js';
 import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
 import { RDF_EXTENSIONS } from './load/format.js';
-import { loadSources } from './load/sources.js';
+import { loadSources, type LoadResultWithSkipped } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { buildRoleMap } from './roles/role-map.js';
 import { toolVersion } from './version.js';
@@ -52,6 +52,15 @@ const SEVERITY: Record<Level, number> = { error: 3, warning: 2, note: 1 };
 /** Runs one lint: the whole data flow from sources to suppressed findings. */
 export async function check(options: CheckOptions): Promise<CheckResult> {
   const startTime = new Date();
+  const loaded = await loadSources(options.paths, { cwd: options.cwd ?? process.cwd(), stdin: options.stdin });
+  return checkLoaded(loaded, options, startTime);
+}
+
+/**
+ * Runs the flow after loading on sources already read (the language server keeps one per document):
+ * config, rules, graph, rules run, suppression. `options.paths` still locates the config file.
+ */
+export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions, startTime: Date = new Date()): CheckResult {
   const cwd = options.cwd ?? process.cwd();
   const inputErrors: InputError[] = [];
 
@@ -64,7 +73,6 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 

@@ -1,5 +1,7 @@
 // Command-line wiring: declares the commands and options, and turns errors into exit codes.
 import { Command, CommanderError, Option } from 'commander';
+import { RDF_EXTENSIONS } from '../load/format.js';
+import { startLanguageServer } from '../lsp/server.js';
 import { toolVersion } from '../version.js';
 import { runCheckCommand, type CheckCommandOptions } from './check-command.js';
 import { runExplainCommand, runInitCommand, runRulesCommand } from './other-commands.js';
@@ -29,6 +31,11 @@ Start:
 
 Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it; 2 a usage, config or input error.
 Run 'isapart help check' for the options of check.`;
+
+const LSP_HELP = `
+The editor starts it and talks to it; it lints every ${RDF_EXTENSIONS.join(', ')} file under the
+workspace folders (with the isapart.yaml found there), open buffers in place of the files on disk.
+Generic client setup: command "isapart", arguments ["lsp", "--stdio"]. See README, "Editors".`;
 
 /** Collects a repeatable option's values. */
 function collect(value: string, previous: string[] = []): string[] {
@@ -101,6 +108,16 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--force', 'overwrite an existing isapart.yaml')
     .action(async (options: { force?: boolean }) => {
       setExit(await runInitCommand(options, terminal));
+    });
+
+  program
+    .command('lsp')
+    .description('run the language server (LSP 3.17) over standard input and output, for editors')
+    .option('--stdio', 'talk over standard input and output (the only transport; accepted as editors pass it)')
+    .option('--clientProcessId <pid>', 'exit when this editor process has gone (passed by some editors)')
+    .addHelpText('after', LSP_HELP)
+    .action(() => {
+      startLanguageServer(process.stdin, process.stdout);
     });
 
   return program;
