@@ -22,7 +22,7 @@ export interface Finding {
   level: Level;
   /** IRI or blank-node label the finding is anchored on. */
   focus: string;
-  /** Involved nodes, in the rule's order (unordered pairs sorted). */
+  /** Involved nodes, in the rule's order (unordered pairs sorted, a cycle's members by term). */
   nodes: string[];
   message: string;
   /** The statements that made it, first one is the primary location. */
@@ -33,6 +33,8 @@ export interface Finding {
   location?: Position;
   fix?: { remove: Statement[] };
   suppression?: Suppression;
+  /** Where a baseline is in use: whether the finding is new, also in the baseline, or only in the baseline. */
+  baselineState?: 'new' | 'unchanged' | 'absent';
 }
 
 /** A rule that failed while running; reported instead of crashing the run. */
