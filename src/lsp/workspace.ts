@@ -36,6 +36,8 @@ export class LintWorkspace {
   private readonly timers = new Map<LintFolder, NodeJS.Timeout>();
   /** The URI and version of each open document, by absolute path. */
   private readonly open = new Map<string, { uri: string; version: number }>();
+  /** The version of each open document the last lint of its folder saw, by URI. */
+  private readonly lintedVersions = new Map<string, number>();
   private queue: Promise<void> = Promise.resolve();
 
   constructor(
@@ -89,6 +91,7 @@ export class LintWorkspace {
     const file = fileOfUri(uri);
     if (file === undefined) return;
     this.open.delete(file);
+    this.lintedVersions.delete(uri);
     const folder = this.folderOf(file, false);
     if (folder === undefined) return;
     folder.closeBuffer(file);
@@ -133,11 +136,9 @@ export class LintWorkspace {
     return folder === undefined || result === undefined ? undefined : { result, folder, file };
   }
 
-  /** Whether a document's buffer has changes the last lint has not seen. */
+  /** Whether the last lint saw this version of a document's buffer (so edits computed on its text fit the editor's). */
   isLintedVersion(uri: string, version: number): boolean {
-    const file = fileOfUri(uri);
-    const folder = file === undefined ? undefined : this.folderOf(file, false);
-    return folder !== undefined && !this.timers.has(folder) && this.lintedVersions.get(uri) === version;
+    return this.lintedVersions.get(uri) === version;
   }
 
   /** The version of an open document by URI, or null when it is not open. */
@@ -155,8 +156,6 @@ export class LintWorkspace {
   settled(): Promise<void> {
     return this.queue;
   }
-
-  private readonly lintedVersions = new Map<string, number>();
 
   private enqueue(work: () => Promise<void>): Promise<void> {
     const run = this.queue.then(work).catch((error: unknown) => {
