@@ -293,11 +293,14 @@ export function atOrAbove(level: Level, threshold: Level): boolean {
 /** The threshold `--fail-on` takes: a level, or never. */
 export type FailOn = Level | 'never';
 
-/** The exit code of a run: 2 on any input error, 1 on an unsuppressed finding at or above failOn, else 0. */
+/** The exit code of a run: 2 on any input error, 1 on an unsuppressed (and, with a baseline, new) finding at or above failOn, else 0. */
 export function exitCodeFor(result: CheckResult, failOn: FailOn): 0 | 1 | 2 {
   if (result.context.inputErrors.length > 0 || result.context.ruleFailures.length > 0) return 2;
   if (failOn === 'never') return 0;
-  const failing = result.findings.some((finding) => !finding.suppression && atOrAbove(finding.level, failOn));
+  // With a baseline only new findings count: unchanged ones were there before, absent ones are gone.
+  const failing = result.findings.some(
+    (finding) => !finding.suppression && finding.baselineState !== 'unchanged' && finding.baselineState !== 'absent' && atOrAbove(finding.level, failOn),
+  );
   return failing ? 1 : 0;
 }
 

@@ -1,9 +1,12 @@
 // `isapart check`: normalise the options, run the library, write the report, return the exit code.
 import path from 'node:path';
-import { atOrAbove, check, exitCodeFor, parseRuleLevel, type FailOn } from '../check.js';
+import { prepareBaseline, type BaselineSource } from '../baseline/apply.js';
+import { atOrAbove, check, exitCodeFor, parseRuleLevel, type CheckOptions, type FailOn } from '../check.js';
 import type { Finding, Level } from '../engine/finding.js';
+import { textRemovalsFor } from '../fix/removals.js';
 import { toJson } from '../report/json.js';
 import { toSarif } from '../report/sarif.js';
+import { toSparqlUpdate } from '../report/sparql-update.js';
 import { toText } from '../report/text.js';
 import type { Terminal } from './terminal.js';
 import { printInputErrors, printRuleFailures } from './print-problems.js';
@@ -11,7 +14,7 @@ import { outputPathProblem, writeFailureReason, writeFileAtomically } from './wr
 
 /** The options of `isapart check` as commander parses them. */
 export interface CheckCommandOptions {
-  format: 'text' | 'json' | 'sarif';
+  format: 'text' | 'json' | 'sarif' | 'sparql-update';
   output?: string;
   config?: string;
   preset?: string[];
@@ -21,9 +24,11 @@ export interface CheckCommandOptions {
   failOn: FailOn;
   color: boolean;
   quiet?: boolean;
+  baseline?: string;
+  since?: string;
 }
 
-const FORMATTERS = { text: toText, json: toJson, sarif: toSarif } as const;
+const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, 'sparql-update': toSparqlUpdate } as const;
 
 /** Parses `--rule ID=LEVEL` values; a malformed one is a usage error message. */
 function parseRuleOptions(values: string[]): { levels: Record<string, string>; error?: string } {
@@ -74,7 +79,7 @@ export async function runCheckCommand(
     terminal.err(`isapart: -o ${options.output}: cannot write the report there: ${outputProblem.reason}\n  hint: ${outputProblem.hint}\n`);
     return 2;
   }
-  const result = await check({
+  const checkOptions: CheckOptions = {
     paths,
     cwd: terminal.cwd,
     stdin: terminal.stdin,
@@ -85,7 +90,31 @@ export async function runCheckCommand(
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,
-  });
+  };
+  if (options.baseline !== undefined && options.since !== undefined) {
+    terminal.err('isapart: --baseline and --since each give the baseline; use one of them\n');
+    return 2;
+  }
+  const source: BaselineSource | undefined =
+    options.baseline !== undefined ? { file: options.baseline } : options.since !== undefined ? { revision: options.since } : undefined;
+  // The baseline is checked before linting, so a long run is not wasted on a comparison that cannot be made.
+  const baseline = source === undefined ? undefined : await prepareBaseline(source, checkOptions);
+  if (baseline !== undefined && 'error' in baseline) {
+    printInputErrors([baseline.error], terminal);
+    return 2;
+  }
+  let result = await check(checkOptions);
+  if (baseline !== undefined) {
+    const compared = await baseline.prepared(result);
+    if ('error' in compared) {
+      printInputErrors([compared.error], terminal);
+      return 2;
+    }
+    result = compared;
+  }
+  if (options.format === 'sarif') {
+    result = { ...result, context: { ...result.context, removals: await textRemovalsFor(result.findings, result.context.sources, terminal.cwd) } };
+  }
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
   const quietText = options.quiet === true && options.format === 'text';
   const shown = quietText ? result.findings.filter((finding) => finding.suppression || atOrAbove(finding.level, threshold)) : result.findings;

@@ -15,6 +15,14 @@ Examples:
   $ zcat dump.nt.gz | isapart check -            lint standard input (format sniffed)
   $ isapart check data/ --rule orphan-class=off --fail-on warning
   $ isapart check data/ --scope https://data.northvale-rail.example/ --root https://data.northvale-rail.example/def/Asset
+  $ isapart check data/ --since origin/main       fail only on findings this branch adds
+  $ isapart check data/ --baseline before.json   compare with a saved -f json (or -f sarif) report
+  $ isapart check data/ -f sparql-update -o fix.rq   a fix script: review it, run it on a copy first
+
+Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the
+baseline); only new ones count for the exit code and the summary. --since needs the revision in the
+clone (in a shallow CI clone, fetch it first: git fetch --depth=1 origin main).
+Fix scripts change data: isapart only writes them; review each block and try it on a copy first.
 
 Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it;
             2 a usage, config or input error (other files are still linted and reported).
@@ -64,7 +72,11 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .command('check')
     .description('lint RDF files, folders (recursively, by extension) or standard input (-)')
     .argument('[paths...]', 'files, folders, or - for standard input', ['.'])
-    .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'sarif']).default('text'))
+    .addOption(
+      new Option('-f, --format <format>', 'output format; sparql-update writes a fix script to review, never run by isapart')
+        .choices(['text', 'json', 'sarif', 'sparql-update'])
+        .default('text'),
+    )
     .option('-o, --output <file>', 'write the report to a file (atomically) instead of standard output')
     .option('-c, --config <file>', 'config file (default: nearest isapart.yaml upward from the first path)')
     .option('--preset <names>', 'add role presets, comma-separated: rdfs,owl,dcterms,schema,obo,skos', collectList)
@@ -76,6 +88,8 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
         .choices(['error', 'warning', 'note', 'never'])
         .default('error'),
     )
+    .option('--baseline <file>', 'an earlier JSON or SARIF report of isapart: only findings not in it are new and count for the exit code')
+    .option('--since <rev>', 'lint the same paths as they were at git revision REV (read from git, no checkout) and use that as the baseline')
     .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
     .option('-q, --quiet', 'text output: only findings at or above --fail-on, and errors')
     .addHelpText('after', CHECK_EXAMPLES)
