@@ -1,7 +1,7 @@
 // Baselines end to end on a copy of the demo: identical runs, a planted error and a fixed one, in JSON and SARIF.
 import { appendFileSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import Ajv from 'ajv';
+import { Ajv } from 'ajv';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../cli/terminal-fake.js';
 import { sarifValidator } from '../report/sarif-validator.js';
