@@ -47,6 +47,11 @@ export interface InitializationOptions {
 /** Starts the server on the streams (stdin and stdout for `isapart lsp`); it runs until the client says exit. */
 export function startLanguageServer(input: NodeJS.ReadableStream, output: NodeJS.WritableStream): Connection {
   const connection = createConnection(input, output);
+  if (output === process.stdout) {
+    // Standard output carries the protocol: anything logged there would break it, so it goes to the client's log.
+    console.log = (...values: unknown[]) => connection.console.log(values.map(String).join(' '));
+    console.info = console.log;
+  }
   const documents = new TextDocuments(TextDocument);
   let workspace: LintWorkspace | undefined;
   let roots: string[] = [];
