@@ -111,4 +111,17 @@ describe('isapart lsp on edits', () => {
     expect(orphan.range.end).toEqual({ line: 2, character: line.length });
     expect(start).toBeGreaterThan([...line.slice(0, start)].length);
   });
+
+  it('parses only the changed document again; the other files stay as parsed', async () => {
+    type Counters = { parses: number; lints: number };
+    const before = (await session.connection.sendRequest('isapart/heap')) as Counters;
+    let extra = session.open(uriOf(path.join(tree.root, 'extra.ttl')), `${PREFIXES}nv:Hopper rdfs:subClassOf nv:FreightWagon .\n`);
+    await session.waitFor(extra.uri, (params) => params.version === extra.version, 'the new buffer linted');
+    extra = session.replace(extra, `${PREFIXES}nv:Hopper rdfs:subClassOf nv:Wagon .\n`);
+    await session.waitFor(extra.uri, (params) => params.version === extra.version, 'the change linted');
+    const after = (await session.connection.sendRequest('isapart/heap')) as Counters;
+    // Two lints of the whole folder (three files and the buffer), one parse each: of the buffer alone.
+    expect(after.lints - before.lints).toBe(2);
+    expect(after.parses - before.parses).toBe(2);
+  });
 });
