@@ -35,7 +35,7 @@ export class LintWorkspace {
   private readonly published = new Map<LintFolder, Set<string>>();
   private readonly timers = new Map<LintFolder, NodeJS.Timeout>();
   /** The URI and version of each open document, by absolute path. */
-  private readonly open = new Map<string, { uri: string; version: number }>();
+  private readonly open = new Map<string, { uri: string; version: number; text: string }>();
   /** The version of each open document the last lint of its folder saw, by URI. */
   private readonly lintedVersions = new Map<string, number>();
   private queue: Promise<void> = Promise.resolve();
@@ -45,42 +45,51 @@ export class LintWorkspace {
     private readonly lintDelayMs: number = DEFAULT_LINT_DELAY_MS,
   ) {}
 
-  /** Adds workspace folders (absolute paths), reads their files and lints them. */
+  /**
+   * Adds workspace folders (absolute paths), reads their files and lints them. The folders are known
+   * at once, so a buffer opened while their files are still being read is linted with them.
+   */
   addFolders(roots: string[]): Promise<void> {
+    const added = roots.filter((root) => !this.folders.some((folder) => folder.root === root)).map((root) => new LintFolder(root, this.counters));
+    this.folders.push(...added);
+    // Buffers opened outside every folder that now lie inside one move into it.
+    for (const [file, loose] of [...this.looseFolders]) {
+      const folder = added.find((candidate) => candidate.contains(file));
+      if (folder === undefined) continue;
+      this.clearPublished(loose);
+      this.looseFolders.delete(file);
+      const open = this.open.get(file);
+      if (open !== undefined) folder.setBuffer(file, open.text);
+    }
     return this.enqueue(async () => {
-      for (const root of roots) {
-        if (this.folders.some((folder) => folder.root === root)) continue;
-        const folder = new LintFolder(root, this.counters);
+      for (const folder of added) {
         await folder.loadAll();
-        this.folders.push(folder);
-        // Buffers opened before the folder was known move into it.
-        for (const [file, loose] of this.looseFolders) {
-          if (!folder.contains(file)) continue;
-          this.clearPublished(loose);
-          this.looseFolders.delete(file);
-        }
         this.lintNow(folder);
       }
     });
   }
 
-  /** Removes workspace folders; their documents' diagnostics are cleared. */
+  /** Removes workspace folders; their documents' diagnostics are cleared, and their open buffers are linted on their own. */
   removeFolders(roots: string[]): Promise<void> {
-    return this.enqueue(async () => {
-      for (const folder of this.folders.filter((candidate) => roots.includes(candidate.root))) {
-        clearTimeout(this.timers.get(folder));
-        this.clearPublished(folder);
-        this.results.delete(folder);
-      }
-      this.folders = this.folders.filter((folder) => !roots.includes(folder.root));
-    });
+    const removed = this.folders.filter((folder) => roots.includes(folder.root));
+    this.folders = this.folders.filter((folder) => !roots.includes(folder.root));
+    for (const folder of removed) {
+      clearTimeout(this.timers.get(folder));
+      this.timers.delete(folder);
+      this.clearPublished(folder);
+      this.results.delete(folder);
+    }
+    for (const [file, open] of this.open) {
+      if (removed.some((folder) => folder.contains(file))) this.changeBuffer(open.uri, open.version, open.text);
+    }
+    return this.enqueue(async () => undefined);
   }
 
   /** An editor buffer opened or changed: it replaces the file until closed; its folder lints after a pause. */
   changeBuffer(uri: string, version: number, text: string): void {
     const file = fileOfUri(uri);
     if (file === undefined) return;
-    this.open.set(file, { uri, version });
+    this.open.set(file, { uri, version, text });
     const folder = this.folderOf(file, true) as LintFolder;
     folder.setBuffer(file, text);
     this.schedule(folder);
