@@ -131,6 +131,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--clientProcessId <pid>', 'exit when this editor process has gone (passed by some editors)')
     .addHelpText('after', LSP_HELP)
     .action(() => {
+      if (process.stdin.isTTY) terminal.err('isapart lsp: waiting for an editor to talk LSP on standard input (Ctrl-C to stop); see isapart lsp --help\n');
       startLanguageServer(process.stdin, process.stdout);
     });
 
