@@ -1,6 +1,7 @@
 // `isapart check`: normalise the options, run the library, write the report, return the exit code.
 import path from 'node:path';
 import { prepareBaseline, type BaselineSource } from '../baseline/apply.js';
+import { isNewOrUncompared } from '../baseline/compare.js';
 import { atOrAbove, check, exitCodeFor, parseRuleLevel, type CheckOptions, type FailOn } from '../check.js';
 import type { Finding, Level } from '../engine/finding.js';
 import { textRemovalsFor } from '../fix/removals.js';
@@ -117,8 +118,11 @@ export async function runCheckCommand(
   }
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
   const quietText = options.quiet === true && options.format === 'text';
-  const shown = quietText ? result.findings.filter((finding) => finding.suppression || atOrAbove(finding.level, threshold)) : result.findings;
-  const hidden = quietText ? result.findings.filter((finding) => !finding.suppression && !atOrAbove(finding.level, threshold)) : [];
+  const shown = quietText
+    ? result.findings.filter((finding) => finding.suppression || !isNewOrUncompared(finding) || atOrAbove(finding.level, threshold))
+    : result.findings;
+  // With a baseline the note counts what --quiet left out of the new findings, as the summary does.
+  const hidden = quietText ? result.findings.filter((finding) => isNewOrUncompared(finding) && !finding.suppression && !atOrAbove(finding.level, threshold)) : [];
   const report = FORMATTERS[options.format](shown, result.context) + quietNote(hidden, threshold);
   // A report that is not text on the terminal (a file, or JSON/SARIF on stdout) would leave the errors unseen.
   if (outputFile !== undefined || options.format !== 'text') {

@@ -101,6 +101,10 @@ describe.each<Format>(['json', 'sarif'])('a %s baseline of the demo', (format) =
     appendFileSync(path.join(dir, 'components.ttl'), '\nnv:Pantograph2 a owl:Class .\n');
     expect((await runCli(dir, ['check', '.', '--baseline', baseline])).code).toBe(0);
     expect((await runCli(dir, ['check', '.', '--baseline', baseline, '--fail-on', 'note'])).code).toBe(1);
+    // --quiet leaves out the new note and says so; the unchanged findings are still counted.
+    const quiet = await runCli(dir, ['check', '.', '--baseline', baseline, '-q']);
+    expect(quiet.out).toContain('--quiet: 1 note below level error not shown');
+    expect(quiet.out).toMatch(/; 15 unchanged; 0 no longer found;/);
   });
 });
 
