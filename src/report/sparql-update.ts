@@ -21,8 +21,9 @@ const LANGUAGE_TAG = /^[a-zA-Z]+(-[a-zA-Z0-9]+)*$/;
  * Renders the fix script: a caution first, then one `DELETE DATA { ... }` operation per finding
  * with a fix (suppressed findings and those only in a baseline left out), each after a comment
  * naming the finding, its rule and where its statements are. A statement with a blank node cannot
- * be named in DELETE DATA (SPARQL 1.1 Update §3.1.3 forbids blank nodes there), so such a finding
- * gets a comment saying so instead of an operation. isapart never runs the script.
+ * be named in DELETE DATA (SPARQL 1.1 Update forbids blank nodes there, in section 3.1.2 from
+ * memory), so such a finding gets a comment saying so instead of an operation. isapart never runs
+ * the script.
  */
 export function toSparqlUpdate(findings: Finding[], context: ReportContext): string {
   const fixable = sortFindings(findings).filter((finding) => finding.fix !== undefined && !finding.suppression && finding.baselineState !== 'absent');
@@ -62,7 +63,7 @@ function findingBlock(finding: Finding, cwd: string): { text: string; operation:
   const unwritable = remove.filter((statement) => statementTerms(statement).some((term) => !writable(term)));
   if (unwritable.length > 0) {
     const reason = unwritable.some((statement) => statementTerms(statement).some((term) => typeof term === 'string' && term.startsWith('_:')))
-      ? 'it names a blank node, which DELETE DATA cannot name (SPARQL 1.1 Update §3.1.3); remove it with DELETE WHERE on its other terms, or edit the file'
+      ? 'it names a blank node, which DELETE DATA cannot name (SPARQL 1.1 Update); edit the file, or write a DELETE ... WHERE that matches that one node (review it: a variable matches every node that fits)'
       : 'it holds a term that SPARQL cannot write as it is; edit the file instead';
     comment.push(`# No operation for this finding: ${unwritable.length === 1 ? 'a statement' : `${unwritable.length} statements`} cannot be deleted here, as ${reason}.`);
     return { text: comment.join('\n'), operation: false };
