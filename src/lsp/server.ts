@@ -1,5 +1,5 @@
 // The language server: LSP 3.17 over a pair of streams, linting the workspace as `isapart check` would.
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { pathToFileURL } from 'node:url';
 import {
   createConnection,
   FileChangeType,
@@ -20,7 +20,7 @@ import { quickFixes, toCodeAction } from './code-actions.js';
 import type { FindingData } from './diagnostics.js';
 import { hoverMarkdown } from './hover.js';
 import { termAt } from './term-at.js';
-import { DEFAULT_LINT_DELAY_MS, LintWorkspace, type DiskChange } from './workspace.js';
+import { DEFAULT_LINT_DELAY_MS, fileOfUri, LintWorkspace, type DiskChange } from './workspace.js';
 
 /** The custom request that reports the server's memory and work counters (see README, "Editors"). */
 export const HEAP_REQUEST = 'isapart/heap';
@@ -70,7 +70,7 @@ export function startLanguageServer(input: NodeJS.ReadableStream, output: NodeJS
     const delay = typeof options.lintDelayMs === 'number' && options.lintDelayMs >= 0 ? options.lintDelayMs : DEFAULT_LINT_DELAY_MS;
     workspace = new LintWorkspace(editor, delay);
     const folders = params.workspaceFolders ?? (params.rootUri ? [{ uri: params.rootUri, name: 'root' }] : []);
-    roots = folders.flatMap((folder) => (folder.uri.startsWith('file:') ? [fileURLToPath(folder.uri)] : []));
+    roots = folderPaths(folders);
     const capabilities = params.capabilities;
     versionedEdits = capabilities.workspace?.workspaceEdit?.documentChanges === true;
     watchFilesDynamically = capabilities.workspace?.didChangeWatchedFiles?.dynamicRegistration === true;
@@ -95,8 +95,8 @@ export function startLanguageServer(input: NodeJS.ReadableStream, output: NodeJS
     }
     if (watchFolders) {
       connection.workspace.onDidChangeWorkspaceFolders((event) => {
-        void workspace?.removeFolders(event.removed.map((folder) => fileURLToPath(folder.uri)));
-        void workspace?.addFolders(event.added.flatMap((folder) => (folder.uri.startsWith('file:') ? [fileURLToPath(folder.uri)] : [])));
+        void workspace?.removeFolders(folderPaths(event.removed));
+        void workspace?.addFolders(folderPaths(event.added));
       });
     }
     void workspace?.addFolders(roots);
@@ -170,4 +170,12 @@ export function startLanguageServer(input: NodeJS.ReadableStream, output: NodeJS
   documents.listen(connection);
   connection.listen();
   return connection;
+}
+
+/** The absolute paths of workspace folders; folders that are not `file:` URIs (a remote file system) are not linted. */
+function folderPaths(folders: readonly { uri: string }[]): string[] {
+  return folders.flatMap((folder) => {
+    const file = fileOfUri(folder.uri);
+    return file === undefined ? [] : [file];
+  });
 }
