@@ -12,7 +12,7 @@ import { writeWorkspace } from './lsp-workspace.js';
 const STATEMENTS = 50_000;
 const FILES = 20;
 const CHECK_RUNS = 5;
-const EDITS = Number(process.env.BENCH_EDITS ?? 20);
+const EDITS = Number(process.env.BENCH_EDITS ?? 40);
 /** The target for diagnostics after an edit. */
 const TARGET_MS = 300;
 
