@@ -133,4 +133,37 @@ describe('isapart lsp code actions', () => {
       expect(await session.codeActions(uri, [linted])).not.toEqual([]);
     });
   });
+
+  describe('across files', () => {
+    const crossTree = temporaryTree('isapart-lsp-actions-cross-');
+    let session: ServerSession;
+
+    beforeAll(async () => {
+      crossTree.write('isapart.yaml', CONFIG);
+      // The redundant direct statement is in motors.ttl; the longer way round goes through equipment.ttl.
+      crossTree.write('equipment.ttl', `${PREFIXES}nv:Component rdfs:subClassOf nv:Asset .\nnv:ElectricalEquipment rdfs:subClassOf nv:Component .\n`);
+      crossTree.write('motors.ttl', `${PREFIXES}nv:TractionMotor rdfs:subClassOf nv:ElectricalEquipment .\nnv:TractionMotor rdfs:subClassOf nv:Component .\n`);
+      session = await startServer({ folders: [crossTree.root], initializationOptions: { lintDelayMs: 10 } });
+    });
+
+    afterAll(async () => {
+      expect(await session.close()).toBe(0);
+    });
+
+    it('offers, from the other file of the finding, the removal in the file that holds the statement', async () => {
+      const motors = uriOf(path.join(crossTree.root, 'motors.ttl'));
+      const equipment = uriOf(path.join(crossTree.root, 'equipment.ttl'));
+      const published = await session.waitFor(equipment, (params) => params.diagnostics.some((d) => d.code === 'redundant-subclass'), 'redundant-subclass');
+      const diagnostic = published.diagnostics.find((d) => d.code === 'redundant-subclass')!;
+      const actions = await session.codeActions(equipment, [diagnostic]);
+      const removal = actions.find((action) => action.title.startsWith('Remove the statement'));
+      expect(removal).toBeDefined();
+      expect(urisOf(removal!.edit!)).toEqual([motors]);
+      // Line 3 (0-based) of motors.ttl, with its line break.
+      expect(editsFor(removal!.edit!, motors)).toEqual([{ range: { start: { line: 3, character: 0 }, end: { line: 4, character: 0 } }, newText: '' }]);
+      // The allow comment goes where the diagnostic is: above the finding's statement in equipment.ttl.
+      const allow = actions.find((action) => action.title.startsWith('Allow'));
+      expect(urisOf(allow!.edit!)).toEqual([equipment]);
+    });
+  });
 });
