@@ -14,7 +14,7 @@ import { buildHierarchyGraph } from './graph/build.js';
 import type { HierarchyGraph } from './graph/hierarchy-graph.js';
 import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
 import { RDF_EXTENSIONS } from './load/format.js';
-import { loadSources } from './load/sources.js';
+import { loadSources, type LoadResultWithSkipped } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { findingTermFacts } from './report/term-facts.js';
 import { buildRoleMap } from './roles/role-map.js';
@@ -56,6 +56,18 @@ const SEVERITY: Record<Level, number> = { error: 3, warning: 2, note: 1 };
 export async function check(options: CheckOptions): Promise<CheckResult> {
   const startTime = new Date();
   const cwd = options.cwd ?? process.cwd();
+  // The loader needs the config's JSON-LD context map; checkLoaded reads the config again and reports its errors.
+  const contexts = new Map(Object.entries(readConfig(options, cwd).config.contexts));
+  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin, baseIri: options.baseIri, contexts });
+  return checkLoaded(loaded, options, startTime);
+}
+
+/**
+ * Runs the flow after loading on sources already read (the language server keeps one per document):
+ * config, rules, graph, rules run, suppression. `options.paths` still locates the config file.
+ */
+export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions, startTime: Date = new Date()): CheckResult {
+  const cwd = options.cwd ?? process.cwd();
   const inputErrors: InputError[] = [];
 
   const { config, errors: configErrors } = readConfig(options, cwd);
@@ -67,8 +79,6 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const contexts = new Map(Object.entries(config.contexts));
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin, baseIri: options.baseIri, contexts });
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
@@ -291,11 +301,14 @@ export function atOrAbove(level: Level, threshold: Level): boolean {
 /** The threshold `--fail-on` takes: a level, or never. */
 export type FailOn = Level | 'never';
 
-/** The exit code of a run: 2 on any input error, 1 on an unsuppressed finding at or above failOn, else 0. */
+/** The exit code of a run: 2 on any input error, 1 on an unsuppressed (and, with a baseline, new) finding at or above failOn, else 0. */
 export function exitCodeFor(result: CheckResult, failOn: FailOn): 0 | 1 | 2 {
   if (result.context.inputErrors.length > 0 || result.context.ruleFailures.length > 0) return 2;
   if (failOn === 'never') return 0;
-  const failing = result.findings.some((finding) => !finding.suppression && atOrAbove(finding.level, failOn));
+  // With a baseline only new findings count: unchanged ones were there before, absent ones are gone.
+  const failing = result.findings.some(
+    (finding) => !finding.suppression && finding.baselineState !== 'unchanged' && finding.baselineState !== 'absent' && atOrAbove(finding.level, failOn),
+  );
   return failing ? 1 : 0;
 }
 

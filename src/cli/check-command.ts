@@ -1,11 +1,15 @@
 // `isapart check`: normalise the options, run the library, write the report, return the exit code.
 import path from 'node:path';
-import { atOrAbove, check, exitCodeFor, parseRuleLevel, type FailOn } from '../check.js';
+import { prepareBaseline, type BaselineSource } from '../baseline/apply.js';
+import { isNewOrUncompared } from '../baseline/compare.js';
+import { atOrAbove, check, exitCodeFor, parseRuleLevel, type CheckOptions, type FailOn } from '../check.js';
 import { iriProblem } from '../config/iri-check.js';
 import type { Finding, Level } from '../engine/finding.js';
+import { textRemovalsFor } from '../fix/removals.js';
 import { toHtml } from '../report/html/html.js';
 import { toJson } from '../report/json.js';
 import { toSarif } from '../report/sarif.js';
+import { toSparqlUpdate } from '../report/sparql-update.js';
 import { toText } from '../report/text.js';
 import type { Terminal } from './terminal.js';
 import { printInputErrors, printRuleFailures } from './print-problems.js';
@@ -13,7 +17,7 @@ import { outputPathProblem, writeFailureReason, writeFileAtomically } from './wr
 
 /** The options of `isapart check` as commander parses them. */
 export interface CheckCommandOptions {
-  format: 'text' | 'json' | 'sarif' | 'html';
+  format: 'text' | 'json' | 'sarif' | 'html' | 'sparql-update';
   output?: string;
   config?: string;
   preset?: string[];
@@ -24,9 +28,11 @@ export interface CheckCommandOptions {
   failOn: FailOn;
   color: boolean;
   quiet?: boolean;
+  baseline?: string;
+  since?: string;
 }
 
-const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, html: toHtml } as const;
+const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, html: toHtml, 'sparql-update': toSparqlUpdate } as const;
 
 /** Parses `--rule ID=LEVEL` values; a malformed one is a usage error message. */
 function parseRuleOptions(values: string[]): { levels: Record<string, string>; error?: string } {
@@ -82,7 +88,7 @@ export async function runCheckCommand(
     terminal.err(`isapart: -o ${options.output}: cannot write the report there: ${outputProblem.reason}\n  hint: ${outputProblem.hint}\n`);
     return 2;
   }
-  const result = await check({
+  const checkOptions: CheckOptions = {
     paths,
     cwd: terminal.cwd,
     stdin: terminal.stdin,
@@ -94,11 +100,38 @@ export async function runCheckCommand(
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,
-  });
+  };
+  if (options.baseline !== undefined && options.since !== undefined) {
+    terminal.err('isapart: --baseline and --since each give the baseline; use one of them\n');
+    return 2;
+  }
+  const source: BaselineSource | undefined =
+    options.baseline !== undefined ? { file: options.baseline } : options.since !== undefined ? { revision: options.since } : undefined;
+  // The baseline is checked before linting, so a long run is not wasted on a comparison that cannot be made.
+  const baseline = source === undefined ? undefined : await prepareBaseline(source, checkOptions);
+  if (baseline !== undefined && 'error' in baseline) {
+    printInputErrors([baseline.error], terminal);
+    return 2;
+  }
+  let result = await check(checkOptions);
+  if (baseline !== undefined) {
+    const compared = await baseline.prepared(result);
+    if ('error' in compared) {
+      printInputErrors([compared.error], terminal);
+      return 2;
+    }
+    result = compared;
+  }
+  if (options.format === 'sarif') {
+    result = { ...result, context: { ...result.context, removals: await textRemovalsFor(result.findings, result.context.sources, terminal.cwd) } };
+  }
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
   const quietText = options.quiet === true && options.format === 'text';
-  const shown = quietText ? result.findings.filter((finding) => finding.suppression || atOrAbove(finding.level, threshold)) : result.findings;
-  const hidden = quietText ? result.findings.filter((finding) => !finding.suppression && !atOrAbove(finding.level, threshold)) : [];
+  const shown = quietText
+    ? result.findings.filter((finding) => finding.suppression || !isNewOrUncompared(finding) || atOrAbove(finding.level, threshold))
+    : result.findings;
+  // With a baseline the note counts what --quiet left out of the new findings, as the summary does.
+  const hidden = quietText ? result.findings.filter((finding) => isNewOrUncompared(finding) && !finding.suppression && !atOrAbove(finding.level, threshold)) : [];
   const report = FORMATTERS[options.format](shown, result.context) + quietNote(hidden, threshold);
   // A report that is not text on the terminal (a file, or JSON/SARIF on stdout) would leave the errors unseen.
   if (outputFile !== undefined || options.format !== 'text') {

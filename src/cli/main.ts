@@ -1,5 +1,7 @@
 // Command-line wiring: declares the commands and options, and turns errors into exit codes.
 import { Command, CommanderError, Option } from 'commander';
+import { RDF_EXTENSIONS } from '../load/format.js';
+import { startLanguageServer } from '../lsp/server.js';
 import { toolVersion } from '../version.js';
 import { runCheckCommand, type CheckCommandOptions } from './check-command.js';
 import { runExplainCommand, runInitCommand, runRulesCommand } from './other-commands.js';
@@ -17,6 +19,14 @@ Examples:
                                                  lint RDF/XML whose relative IRIs need a base
   $ isapart check data/ --rule orphan-class=off --fail-on warning
   $ isapart check data/ --scope https://data.northvale-rail.example/ --root https://data.northvale-rail.example/def/Asset
+  $ isapart check data/ --since origin/main       fail only on findings this branch adds
+  $ isapart check data/ --baseline before.json   compare with a saved -f json (or -f sarif) report
+  $ isapart check data/ -f sparql-update -o fix.rq   a fix script: review it, run it on a copy first
+
+Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the
+baseline); only new ones count for the exit code and the summary. --since needs the revision in the
+clone (in a shallow CI clone, fetch it first: git fetch --depth=1 origin main).
+Fix scripts change data: isapart only writes them; review each block and try it on a copy first.
 
 Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it;
             2 a usage, config or input error (other files are still linted and reported).
@@ -35,6 +45,11 @@ Start:
 
 Exit codes: 0 nothing at or above --fail-on; 1 findings at or above it; 2 a usage, config or input error.
 Run 'isapart help check' for the options of check.`;
+
+const LSP_HELP = `
+The editor starts it and talks to it; it lints every ${RDF_EXTENSIONS.join(', ')} file under the
+workspace folders (with the isapart.yaml found there), open buffers in place of the files on disk.
+Generic client setup: command "isapart", arguments ["lsp", "--stdio"]. See README, "Editors".`;
 
 /** Collects a repeatable option's values. */
 function collect(value: string, previous: string[] = []): string[] {
@@ -63,7 +78,11 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .command('check')
     .description('lint RDF files, folders (recursively, by extension) or standard input (-)')
     .argument('[paths...]', 'files, folders, or - for standard input', ['.'])
-    .addOption(new Option('-f, --format <format>', 'output format (html: one self-contained page with a diagram per finding)').choices(['text', 'json', 'sarif', 'html']).default('text'))
+    .addOption(
+      new Option('-f, --format <format>', 'output format; html: one self-contained page with a diagram per finding; sparql-update: a fix script to review, never run by isapart')
+        .choices(['text', 'json', 'sarif', 'html', 'sparql-update'])
+        .default('text'),
+    )
     .option('-o, --output <file>', 'write the report to a file (atomically) instead of standard output')
     .option('-c, --config <file>', 'config file (default: nearest isapart.yaml upward from the first path)')
     .option('--preset <names>', 'add role presets, comma-separated: rdfs,owl,dcterms,schema,obo,skos', collectList)
@@ -76,6 +95,8 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
         .choices(['error', 'warning', 'note', 'never'])
         .default('error'),
     )
+    .option('--baseline <file>', 'an earlier JSON or SARIF report of isapart: only findings not in it are new and count for the exit code')
+    .option('--since <rev>', 'lint the same paths as they were at git revision REV (read from git, no checkout) and use that as the baseline')
     .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
     .option('-q, --quiet', 'text output: only findings at or above --fail-on, and errors')
     .addHelpText('after', CHECK_EXAMPLES)
@@ -108,6 +129,17 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--force', 'overwrite an existing isapart.yaml')
     .action(async (options: { force?: boolean }) => {
       setExit(await runInitCommand(options, terminal));
+    });
+
+  program
+    .command('lsp')
+    .description('run the language server (LSP 3.17) over standard input and output, for editors')
+    .option('--stdio', 'talk over standard input and output (the only transport; accepted as editors pass it)')
+    .option('--clientProcessId <pid>', 'exit when this editor process has gone (passed by some editors)')
+    .addHelpText('after', LSP_HELP)
+    .action(() => {
+      if (process.stdin.isTTY) terminal.err('isapart lsp: waiting for an editor to talk LSP on standard input (Ctrl-C to stop); see isapart lsp --help\n');
+      startLanguageServer(process.stdin, process.stdout);
     });
 
   return program;

@@ -14,7 +14,9 @@ function placeOf(problem: InputError, cwd: string): string {
 /** Prints input errors to stderr as `file:line:col: error: message`, each hint on its own line. */
 export function printInputErrors(errors: readonly InputError[], terminal: Terminal): void {
   for (const error of errors) {
-    terminal.err(`${placeOf(error, terminal.cwd)}: error: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
+    // An error about no file (a command-line option) is named by the program instead.
+    const place = error.file === '' ? 'isapart' : placeOf(error, terminal.cwd);
+    terminal.err(`${place}: error: ${error.message}${error.hint ? `\n  hint: ${error.hint}` : ''}\n`);
   }
 }
 

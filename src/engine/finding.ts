@@ -22,7 +22,7 @@ export interface Finding {
   level: Level;
   /** IRI or blank-node label the finding is anchored on. */
   focus: string;
-  /** Involved nodes, in the rule's order (unordered pairs sorted). */
+  /** Involved nodes, in the rule's order (unordered pairs sorted, a cycle's members by term). */
   nodes: string[];
   message: string;
   /** The statements that made it, first one is the primary location. */

@@ -64,7 +64,13 @@ export function findingsOf(graph: HierarchyGraph, plan: RulePlan, level: Level):
     const focus = members(program.focus)[0];
     if (!graph.is('in-scope', focus)) return false;
     const nodes: string[] = [];
-    for (const reference of program.nodes) for (const id of members(reference)) nodes.push(graph.term(id));
+    for (const reference of program.nodes) {
+      // A cycle's members go in by term: the walk's start and direction depend on the scope and on
+      // statement order, and the fingerprint must not.
+      const terms = members(reference).map((id) => graph.term(id));
+      if (reference.list) terms.sort(compareText);
+      for (const term of terms) nodes.push(term);
+    }
     const fingerprint = fingerprintOf(ruleId, nodes);
     if (seen.has(fingerprint)) return false;
     seen.add(fingerprint);

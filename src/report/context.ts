@@ -2,7 +2,8 @@
 import type { RuleFailure, RuleLevel } from '../engine/finding.js';
 import type { RuleDefinition } from '../engine/rule.js';
 import type { GraphStats } from '../graph/hierarchy-graph.js';
-import type { InputError, RdfFormat } from '../load/statement.js';
+import type { LineRemoval } from '../fix/text-removal.js';
+import type { InputError, RdfFormat, Statement } from '../load/statement.js';
 import type { PredicateMapping } from '../roles/role.js';
 
 /** A rule as the run used it: its definition and its effective level. */
@@ -39,4 +40,8 @@ export interface ReportContext {
   endTime: Date;
   /** The command line, for SARIF's invocation. */
   commandLine: string;
+  /** When findings were compared with a baseline: what it was (a file, or a git revision), as shown to people. */
+  baseline?: { source: string };
+  /** Fix statements whose removal is a safe deletion of whole lines of their file (for SARIF fixes). */
+  removals?: ReadonlyMap<Statement, LineRemoval>;
 }

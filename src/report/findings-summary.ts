@@ -7,12 +7,17 @@ import type { ReportContext } from './context.js';
 /** Finding levels from most to least severe. */
 export const LEVELS: readonly Level[] = ['error', 'warning', 'note'];
 
-/** What a report's summary counts. Level counts leave out suppressed findings. */
+/**
+ * What a report's summary counts. Level counts leave out suppressed findings; with a baseline,
+ * level and suppressed counts are of new findings only, and `unchanged` and `absent` count the rest.
+ */
 export interface FindingCounts {
   error: number;
   warning: number;
   note: number;
   suppressed: number;
+  unchanged: number;
+  absent: number;
   inputErrors: number;
   ruleFailures: number;
   files: number;
@@ -31,13 +36,16 @@ export function countFindings(findings: Finding[], context: ReportContext): Find
     warning: 0,
     note: 0,
     suppressed: 0,
+    unchanged: 0,
+    absent: 0,
     inputErrors: context.inputErrors.length,
     ruleFailures: context.ruleFailures.length,
     files: context.sources.length,
     statements: 0,
   };
   for (const finding of findings) {
-    if (finding.suppression) counts.suppressed += 1;
+    if (finding.baselineState === 'unchanged' || finding.baselineState === 'absent') counts[finding.baselineState] += 1;
+    else if (finding.suppression) counts.suppressed += 1;
     else counts[finding.level] += 1;
   }
   for (const source of context.sources) counts.statements += source.statements;

@@ -1,4 +1,4 @@
-// The JSON report: a versioned document (format `isapart-findings`, version 1) described by docs/findings.schema.json.
+// The JSON report: a versioned document (format `isapart-findings`, version 2) described by docs/findings.schema.json.
 import type { Finding, RuleFailure, Suppression } from '../engine/finding.js';
 import type { InputError, Literal, Position, RdfFormat, Statement } from '../load/statement.js';
 import type { ReportContext } from './context.js';
@@ -8,8 +8,12 @@ import { relativePath } from './paths.js';
 /** The `format` value that marks an isapart findings document. */
 export const JSON_REPORT_FORMAT = 'isapart-findings';
 
-/** The version of the findings document; raised when a field changes meaning or goes away. */
-export const JSON_REPORT_VERSION = 1;
+/**
+ * The version of the findings document; raised when a field changes meaning or goes away, or when
+ * fingerprints are computed differently (version 2: a cycle's nodes sorted by term; baselineState).
+ * A baseline is read only when it has this version, so fingerprints are always compared like with like.
+ */
+export const JSON_REPORT_VERSION = 2;
 
 /** A statement as the JSON report writes it; `graph` is '' for the default graph. */
 export interface JsonStatement {
@@ -34,6 +38,7 @@ export interface JsonFinding {
   location?: Position;
   fix?: { remove: JsonStatement[] };
   suppression?: Suppression;
+  baselineState?: Finding['baselineState'];
 }
 
 /** The whole findings document. */
@@ -51,6 +56,8 @@ export interface JsonReport {
     ruleFailures: number;
     files: number;
     statements: number;
+    /** With a baseline: what it was, and how many findings are new, unchanged or absent (level counts are of new ones only). */
+    baseline?: { source: string; new: number; unchanged: number; absent: number };
   };
   inputs: { file: string; format: RdfFormat; statements: number }[];
   findings: JsonFinding[];
@@ -77,6 +84,9 @@ export function toJsonReport(findings: Finding[], context: ReportContext): JsonR
       ruleFailures: counts.ruleFailures,
       files: counts.files,
       statements: counts.statements,
+      ...(context.baseline === undefined
+        ? {}
+        : { baseline: { source: context.baseline.source, new: findings.length - counts.unchanged - counts.absent, unchanged: counts.unchanged, absent: counts.absent } }),
     },
     inputs: context.sources.map((source) => ({
       file: relativePath(source.file, cwd),
@@ -124,6 +134,7 @@ function jsonFinding(finding: Finding, cwd: string): JsonFinding {
     const { kind, justification, file, line } = finding.suppression;
     written.suppression = { kind, justification, file: relativePath(file, cwd), line };
   }
+  if (finding.baselineState) written.baselineState = finding.baselineState;
   return written;
 }
 

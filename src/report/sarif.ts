@@ -1,8 +1,10 @@
 // The SARIF 2.1.0 report: one run with the rules, results, artifacts and the invocation's notifications.
 import type { Finding, RuleFailure, Suppression } from '../engine/finding.js';
+import type { LineRemoval } from '../fix/text-removal.js';
 import type { InputError, Position, RdfFormat, Statement } from '../load/statement.js';
 import type { ReportContext, RuleInUse } from './context.js';
 import { compareText, primaryPosition, sortFindings } from './findings-summary.js';
+import { JSON_REPORT_VERSION } from './json.js';
 import { fileUri, folderUri, isRelativeShownPath, relativePath, STDIN_FILE } from './paths.js';
 import { createTermWriter, type TermWriter } from './statement-text.js';
 
@@ -11,6 +13,9 @@ export const SARIF_SCHEMA_URI = 'https://docs.oasis-open.org/sarif/sarif/v2.1.0/
 
 /** The key of isapart's fingerprint in `partialFingerprints`. */
 export const FINGERPRINT_KEY = 'isapart/v1';
+
+/** The run property that names the findings version (that of the JSON report), so a SARIF baseline is read only by an isapart that fingerprints alike. */
+export const FINDINGS_VERSION_PROPERTY = 'findingsVersion';
 
 /** The uriBaseId that relative artifact URIs resolve against: the folder the run started in. */
 export const PROJECT_ROOT_BASE_ID = 'PROJECTROOT';
@@ -43,6 +48,9 @@ interface SarifWriter {
   artifactIndex: Map<string, number>;
   /** Rule id → index in `tool.driver.rules`. */
   ruleIndex: Map<string, number>;
+  /** Whether results carry baselineState: on all of them or none (SARIF 2.1.0 §3.27.24). */
+  withBaseline: boolean;
+  removals: ReadonlyMap<Statement, LineRemoval>;
 }
 
 /** Renders the run as a SARIF 2.1.0 log (2-space indentation, trailing newline). */
@@ -53,6 +61,8 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
     terms: createTermWriter(),
     artifactIndex: new Map(context.sources.map((source, index) => [relativePath(source.file, context.cwd), index])),
     ruleIndex: new Map(rules.map((ruleInUse, index) => [ruleInUse.rule.id, index])),
+    withBaseline: context.baseline !== undefined || findings.some((finding) => finding.baselineState !== undefined),
+    removals: context.removals ?? new Map(),
   };
   const notifications = [
     ...context.inputErrors.map((error) => inputErrorNotification(error, 'error', writer)),
@@ -92,6 +102,7 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
         })),
         columnKind: 'utf16CodeUnits',
         results: sortFindings(findings).map((finding) => result(finding, writer)),
+        properties: { [FINDINGS_VERSION_PROPERTY]: JSON_REPORT_VERSION },
       },
     ],
   };
@@ -137,20 +148,63 @@ function result(finding: Finding, writer: SarifWriter): SarifObject {
   // SARIF 2.1.0: producers fill partialFingerprints and leave fingerprints to result management systems.
   written.partialFingerprints = { [FINGERPRINT_KEY]: finding.fingerprint };
   if (finding.suppression) written.suppressions = [suppression(finding.suppression, writer)];
+  // SARIF 2.1.0 §3.27.24: when any result has a baselineState, every result has one.
+  if (writer.withBaseline) written.baselineState = finding.baselineState ?? 'new';
   const properties: SarifObject = { nodes: [...finding.nodes] };
-  // A SARIF fix must carry artifactChanges with deleted regions; statements know only where they
-  // start, so the proposed removal travels as a property until fixes know statement extents.
-  if (finding.fix) properties.fix = proposedFix(finding.fix.remove, writer);
+  if (finding.fix) {
+    const fix = textFix(finding.fix.remove, writer);
+    // A SARIF fix needs at least one artifact change (its schema requires them), so a removal that is
+    // not a safe deletion of whole lines travels as a described proposal in the properties instead.
+    if (fix !== undefined) written.fixes = [fix];
+    else properties.fix = proposedFix(finding.fix.remove, writer);
+  }
   written.properties = properties;
   return written;
 }
 
-function proposedFix(remove: Statement[], writer: SarifWriter): SarifObject {
+/** What removing the statements means, in words. */
+function removalDescription(remove: Statement[], writer: SarifWriter): string {
   const statements = remove.map((statement) => writer.terms.statement(statement));
+  return `Remove ${remove.length === 1 ? 'the statement' : `${remove.length} statements`}: ${statements.join('; ')}`;
+}
+
+/** A SARIF fix deleting each statement's lines, when every one of them is a safe whole-line removal. */
+function textFix(remove: Statement[], writer: SarifWriter): SarifObject | undefined {
+  const removals = remove.map((statement) => writer.removals.get(statement));
+  if (removals.length === 0 || removals.some((removal) => removal === undefined)) return undefined;
+  const byFile = new Map<string, LineRemoval[]>();
+  for (const removal of removals as LineRemoval[]) {
+    const same = byFile.get(removal.file);
+    if (same === undefined) byFile.set(removal.file, [removal]);
+    else same.push(removal);
+  }
   return {
-    description: `Remove ${remove.length === 1 ? 'the statement' : `${remove.length} statements`}: ${statements.join('; ')}`,
-    remove: remove.map((statement, index) => ({
-      statement: statements[index],
+    description: { text: `${removalDescription(remove, writer)}. Review the change before applying it.` },
+    artifactChanges: [...byFile].map(([file, fileRemovals]) => ({
+      artifactLocation: artifactLocation(file, writer),
+      replacements: fileRemovals.sort((left, right) => left.firstLine - right.firstLine).map((removal) => ({ deletedRegion: deletedLines(removal) })),
+    })),
+  };
+}
+
+/**
+ * The region of whole lines, line ends included: up to column 1 of the next line, or on a last
+ * line without a line end, up to its end (SARIF 2.1.0 text regions, columns in UTF-16 code units).
+ */
+function deletedLines(removal: LineRemoval): SarifObject {
+  const snippet = { text: removal.text };
+  if (/(\r\n|\r|\n)$/.test(removal.text)) {
+    return { startLine: removal.firstLine, startColumn: 1, endLine: removal.lastLine + 1, endColumn: 1, snippet };
+  }
+  const lastLine = removal.text.split(/\r\n|\r|\n/).pop() ?? '';
+  return { startLine: removal.firstLine, startColumn: 1, endLine: removal.lastLine, endColumn: lastLine.length + 1, snippet };
+}
+
+function proposedFix(remove: Statement[], writer: SarifWriter): SarifObject {
+  return {
+    description: removalDescription(remove, writer),
+    remove: remove.map((statement) => ({
+      statement: writer.terms.statement(statement),
       file: relativePath(statement.position.file, writer.cwd),
       line: statement.position.line,
       column: statement.position.column,

@@ -30,14 +30,19 @@ export function toText(findings: Finding[], context: TextReportContext): string 
     terms: createTermWriter(context.prefixes),
     cwd: context.cwd,
   };
+  // With a baseline, only new findings are listed; unchanged ones are counted, absent ones listed apart.
+  const listed = findings.filter((finding) => finding.baselineState === undefined || finding.baselineState === 'new');
+  const counts = countFindings(findings, context);
   const sections = [
     inputProblemsSection(context.inputErrors, 'error', writer),
     inputProblemsSection(context.inputWarnings ?? [], 'warning', writer),
     ruleFailuresSection(context, writer),
-    ...fileSections(findings.filter((finding) => !finding.suppression), writer),
-    allowedSection(findings.filter((finding) => finding.suppression), writer),
+    ...fileSections(listed.filter((finding) => !finding.suppression), writer),
+    allowedSection(listed.filter((finding) => finding.suppression), writer),
+    absentSection(findings.filter((finding) => finding.baselineState === 'absent'), writer),
+    baselineSection(context, counts, listed.length),
   ].filter((section) => section.length > 0);
-  sections.push([summaryLine(countFindings(findings, context), writer.paint)]);
+  sections.push([summaryLine(counts, writer.paint, context.baseline !== undefined)]);
   return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
 }
 
@@ -108,12 +113,28 @@ function allowedSection(suppressed: Finding[], writer: TextWriter): string[] {
   return lines;
 }
 
-function summaryLine(counts: FindingCounts, paint: ChalkInstance): string {
+/** Findings of the baseline that this run no longer has, each with its rule and message. */
+function absentSection(absent: Finding[], writer: TextWriter): string[] {
+  if (absent.length === 0) return [];
+  const lines = [writer.paint.bold(`no longer found (${absent.length})`)];
+  for (const finding of sortFindings(absent)) lines.push(`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`);
+  return lines;
+}
+
+/** One line saying what the findings were compared with and how many of each state there are. */
+function baselineSection(context: ReportContext, counts: FindingCounts, newCount: number): string[] {
+  if (context.baseline === undefined) return [];
+  const gone = counts.absent === 0 ? 'none no longer found' : `${counts.absent} no longer found`;
+  return [`compared with ${context.baseline.source}: ${newCount} new, ${counts.unchanged} unchanged (not listed), ${gone}`];
+}
+
+function summaryLine(counts: FindingCounts, paint: ChalkInstance, withBaseline: boolean): string {
   const levelCounts = LEVELS.map((level) => {
-    const text = plural(counts[level], level);
+    const text = plural(counts[level], withBaseline ? `new ${level}` : level);
     return counts[level] > 0 ? paintForLevel(level, paint)(text) : text;
   });
   const parts = [levelCounts.join(', '), `${counts.suppressed} allowed`];
+  if (withBaseline) parts.push(`${counts.unchanged} unchanged`, `${counts.absent} no longer found`);
   if (counts.inputErrors > 0) parts.push(paint.red(plural(counts.inputErrors, 'input error')));
   if (counts.ruleFailures > 0) parts.push(paint.red(plural(counts.ruleFailures, 'rule failure')));
   parts.push(`${plural(counts.files, 'file')} and ${plural(counts.statements, 'statement')} read`);

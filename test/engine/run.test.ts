@@ -134,7 +134,7 @@ describe('runRules findings', () => {
     expect(findings[0].evidence).toEqual([]);
   });
 
-  it('reports a cycle once, its members from the one whose term sorts first, closing the message back to it', () => {
+  it('reports a cycle once: its nodes by term, its message along the walk from the member that sorts first, closing back to it', () => {
     const cycle = defineRule('subclass-cycle', [{ type: 'cycle', path: 'subclass-of', members: '?m' }], {
       focus: '?m',
       nodes: ['?m'],
@@ -149,7 +149,7 @@ describe('runRules findings', () => {
       ['Signal', 'subclass-of', 'Asset'],
     ]);
     const { findings } = runRules(graph, [{ rule: cycle, level: 'error' }]);
-    expect(findings.map((finding) => finding.nodes)).toEqual([[`${NV}Bogie`, `${NV}Wagon`, `${NV}Freight`], [`${NV}Signal`]]);
+    expect(findings.map((finding) => finding.nodes)).toEqual([[`${NV}Bogie`, `${NV}Freight`, `${NV}Wagon`], [`${NV}Signal`]]);
     expect(findings[0].message).toBe('nv:Bogie → nv:Wagon → nv:Freight → nv:Bogie form a cycle');
     expect(findings[0].focus).toBe(`${NV}Bogie`);
     expect(findings[0].evidence.map((statement) => statement.position.line)).toEqual([3, 1, 2]);

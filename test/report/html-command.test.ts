@@ -49,7 +49,7 @@ describe('isapart check -f html', () => {
   it('is named by check --help, with an example', async () => {
     const result = await runCli(folderWith({}), ['check', '--help']);
     expect(result.code).toBe(0);
-    expect(result.out.replace(/\s+/g, ' ')).toContain('(choices: "text", "json", "sarif", "html", default: "text")');
+    expect(result.out.replace(/\s+/g, ' ')).toContain('(choices: "text", "json", "sarif", "html", "sparql-update", default: "text")');
     expect(result.out).toContain('-f html -o report.html');
   });
 });

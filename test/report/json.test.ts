@@ -36,7 +36,7 @@ describe('toJson', () => {
 
   it('is checked by a schema that rejects a wrong document', () => {
     const document = fullDocument();
-    document.version = 2;
+    document.version = 1;
     expect(validate(document)).toBe(false);
     const extraKey = fullDocument();
     extraKey.findings[0].position = {};

@@ -1,8 +1,5 @@
 // toSarif: SARIF 2.1.0 output, validated against the OASIS schema and checked against the standard's rules.
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import Ajv from 'ajv-draft-04';
 import { describe, expect, it } from 'vitest';
 import { FINGERPRINT_KEY, PROJECT_ROOT_BASE_ID, SARIF_SCHEMA_URI, toSarif } from '../../src/report/sarif.js';
 import { STDIN_FILE } from '../../src/report/paths.js';
@@ -20,24 +17,9 @@ import {
   UNUSED_ALLOW_FINDING,
   context,
 } from './report-fixtures.js';
+import { SARIF_SCHEMA, sarifValidator } from './sarif-validator.js';
 
-// The OASIS SARIF 2.1.0 schema, copied unchanged (test/standards/oasis-sarif/README.md).
-const schemaFile = path.resolve(__dirname, '../standards/oasis-sarif/sarif-schema-2.1.0.json');
-const sarifSchema = JSON.parse(readFileSync(schemaFile, 'utf8'));
-
-// RFC 3339 date-time (the schema's "format": "date-time"), checked by pattern and by Date parsing.
-const DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?(Z|[+-]\d{2}:\d{2})$/;
-
-function sarifValidator() {
-  // ajv-draft-04 is CommonJS: under NodeNext the default import is module.exports, whose `default` is the class.
-  const ajv = new Ajv.default({ allErrors: true });
-  ajv.addFormat('date-time', (value: string) => DATE_TIME.test(value) && !Number.isNaN(Date.parse(value)));
-  // An absolute URI parses on its own with the WHATWG URL parser; a reference parses against a base.
-  ajv.addFormat('uri', (value: string) => URL.canParse(value));
-  ajv.addFormat('uri-reference', (value: string) => URL.canParse(value, 'file:///base/'));
-  return ajv.compile(sarifSchema);
-}
-
+const sarifSchema = SARIF_SCHEMA;
 const validate = sarifValidator();
 
 function fullLog() {
