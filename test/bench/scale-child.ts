@@ -14,6 +14,8 @@ export interface ChildResult {
   wallMs: number;
   /** Peak resident set size as the child's own getrusage reports it at exit; null if it never got there. */
   maxRssBytes: number | null;
+  /** User plus system CPU time of the whole process, from the same report; null with it. */
+  cpuMs: number | null;
   exitCode: number | null;
   stdout: string;
   stderr: string;
@@ -24,9 +26,10 @@ export interface ChildResult {
 const RSS_MARKER = 'isapart-bench-max-rss-kb:';
 /**
  * Preloaded into every child: on exit, print the process's peak RSS (process.resourceUsage().maxRSS,
- * in kilobytes) to stderr, so the figure covers every thread of the process, wasm memory included.
+ * in kilobytes) and its CPU time (microseconds) to stderr, so the figures cover every thread of the
+ * process, wasm memory included.
  */
-const RSS_PRELOAD = `data:text/javascript,process.on("exit",()=>process.stderr.write("\\n${RSS_MARKER}"+process.resourceUsage().maxRSS+"\\n"))`;
+const RSS_PRELOAD = `data:text/javascript,process.on("exit",()=>{const u=process.resourceUsage();process.stderr.write("\\n${RSS_MARKER}"+u.maxRSS+" "+(u.userCPUTime+u.systemCPUTime)+"\\n")})`;
 /** How often the memory bound is checked. */
 const POLL_MS = 500;
 
@@ -67,12 +70,15 @@ export function runNodeChild(args: string[], cwd: string, bounds: ChildBounds, n
       clearInterval(poll);
       let errorText = Buffer.concat(stderr).toString('utf8');
       let maxRssBytes: number | null = null;
+      let cpuMs: number | null = null;
       const markerAt = errorText.lastIndexOf(`\n${RSS_MARKER}`);
       if (markerAt !== -1) {
-        maxRssBytes = Number.parseInt(errorText.slice(markerAt + RSS_MARKER.length + 1), 10) * 1024;
+        const [kilobytes, micros] = errorText.slice(markerAt + RSS_MARKER.length + 1).trim().split(' ');
+        maxRssBytes = Number(kilobytes) * 1024;
+        cpuMs = Number(micros) / 1000;
         errorText = errorText.slice(0, markerAt);
       }
-      resolve({ wallMs, maxRssBytes, exitCode, stdout: Buffer.concat(stdout).toString('utf8'), stderr: errorText, stopped });
+      resolve({ wallMs, maxRssBytes, cpuMs, exitCode, stdout: Buffer.concat(stdout).toString('utf8'), stderr: errorText, stopped });
     });
   });
 }

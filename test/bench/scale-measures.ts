@@ -1,6 +1,6 @@
 // The reference measures of the scale benchmark, one per child process: newline scan, n3 bare parse, oxigraph.
 // Usage: node --import tsx test/bench/scale-measures.ts newline-scan|n3-parse|oxigraph FILE SYNTAX [SCOPE-JSON]
-// Prints one JSON line: the work's own milliseconds (module loading excluded) and what it counted.
+// Prints one JSON line: the work's own wall and CPU milliseconds (module loading excluded) and what it counted.
 import { closeSync, createReadStream, openSync, readSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { StreamParser } from 'n3';
@@ -86,6 +86,7 @@ function oxigraphLoadAndQuery(file: string, syntax: Syntax, scope: BenchScope): 
 const [measure, file, syntaxArgument, scopeJson] = process.argv.slice(2);
 const syntax: Syntax = syntaxArgument === 'turtle' ? 'turtle' : 'n-triples';
 const start = performance.now();
+const cpuStart = process.cpuUsage();
 let counts: Record<string, number>;
 if (measure === 'newline-scan') counts = newlineScan(file);
 else if (measure === 'n3-parse') counts = await n3Parse(file, syntax);
@@ -94,4 +95,5 @@ else {
   console.error('usage: scale-measures.ts newline-scan|n3-parse|oxigraph FILE n-triples|turtle [SCOPE-JSON]');
   process.exit(2);
 }
-console.log(JSON.stringify({ ms: performance.now() - start, ...counts }));
+const cpu = process.cpuUsage(cpuStart);
+console.log(JSON.stringify({ ms: performance.now() - start, cpuMs: (cpu.user + cpu.system) / 1000, ...counts }));
