@@ -15,6 +15,8 @@ import type { HierarchyGraph } from './graph/hierarchy-graph.js';
 import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
 import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources } from './load/sources.js';
+import type { LoadProgress } from './load/byte-source.js';
+import { predicatesTheGraphReads } from './graph/read-predicates.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { buildRoleMap } from './roles/role-map.js';
 import { toolVersion } from './version.js';
@@ -36,6 +38,10 @@ export interface CheckOptions {
   color?: boolean;
   /** The command line as typed, for SARIF's invocation record. */
   commandLine?: string;
+  /** Called while sources are read, with how far reading has got (the CLI draws a progress bar from it). */
+  onProgress?: (progress: LoadProgress) => void;
+  /** false reads N-Triples and N-Quads whole with n3 instead of line by line (for comparisons; same findings). */
+  fastLines?: boolean;
 }
 
 /** Everything a run produced: findings, the context every formatter reads, and the graph. */
@@ -64,7 +70,14 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
+  // Only the statements the graph reads are stored; the others are counted as read.
+  const loaded = await loadSources(options.paths, {
+    cwd,
+    stdin: options.stdin,
+    keepPredicates: predicatesTheGraphReads(roleMap),
+    fastLines: options.fastLines,
+    onProgress: options.onProgress,
+  });
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
@@ -98,7 +111,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     sources: loaded.sources.map((source) => ({
       file: source.file,
       format: source.format,
-      statements: source.statements.length,
+      statements: source.statementCount ?? source.statements.length,
     })),
     inputErrors,
     inputWarnings,
@@ -165,7 +178,8 @@ function namesUnder(folder: string, shown: string[]): string {
 
 /** A warning when sources were read but none held a statement, so that an empty export does not pass unnoticed. */
 function nothingReadWarnings(sources: LoadedSource[]): InputError[] {
-  if (sources.length === 0 || sources.some((source) => source.statements.length > 0 || source.errors.length > 0)) return [];
+  const read = (source: LoadedSource): number => source.statementCount ?? source.statements.length;
+  if (sources.length === 0 || sources.some((source) => read(source) > 0 || source.errors.length > 0)) return [];
   const files = sources.length === 1 ? `${sources[0].file} holds` : `none of the ${sources.length} files read holds`;
   return [
     {

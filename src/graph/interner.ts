@@ -9,8 +9,12 @@ const NOT_A_NODE = -1;
  * both lets the builder look each term up in a map once per statement and work with integers after.
  */
 export class TermInterner {
-  private readonly numbers = new Map<string, number>();
-  private readonly texts: string[] = [];
+  /** Starts from terms numbered already (a StatementStore's), or from none. */
+  constructor(
+    private readonly numbers = new Map<string, number>(),
+    private readonly texts: string[] = [],
+  ) {}
+
   private nodeOfNumber = new Int32Array(1024).fill(NOT_A_NODE);
   private readonly nodeTerms: string[] = [];
   private readonly nodeNumbers: number[] = [];

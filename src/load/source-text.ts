@@ -31,6 +31,11 @@ export async function toSourceText(bytes: Uint8Array, file: string): Promise<Sou
       };
     }
   }
+  return decodeText(plain, file);
+}
+
+/** Decodes UTF-8 bytes (dropping a BOM), or the error naming where the first invalid sequence starts. */
+export function decodeText(plain: Uint8Array, file: string): SourceText {
   try {
     // TextDecoder drops a leading UTF-8 BOM unless told otherwise.
     return { text: new TextDecoder('utf-8', { fatal: true }).decode(plain) };
@@ -49,7 +54,7 @@ export async function toSourceText(bytes: Uint8Array, file: string): Promise<Sou
 }
 
 /** The 1-based line and UTF-16 column where the first invalid UTF-8 sequence starts. */
-function firstInvalidUtf8(bytes: Uint8Array): { line: number; column: number } {
+export function firstInvalidUtf8(bytes: Uint8Array): { line: number; column: number } {
   // A prefix that decodes (allowing a cut-off last character) stays valid when shortened,
   // so the longest valid prefix can be found by bisection.
   let valid = 0;

@@ -1,4 +1,5 @@
 // Statements as the loaders give them: RDF terms as plain strings, plus where they were stated.
+import type { StatementStore } from './statement-store.js';
 
 /** A literal object: lexical form, datatype IRI, and language tag ('' when none). */
 export interface Literal {
@@ -53,11 +54,25 @@ export interface AllowComment {
 /** The RDF syntaxes isapart reads. */
 export type RdfFormat = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
 
+/** Where a source's kept statements are: rows start..end-1 of a run's StatementStore. */
+export interface StoredRows {
+  store: StatementStore;
+  start: number;
+  end: number;
+}
+
 /** Everything read from one source (a file, or stdin as file '<stdin>'). */
 export interface LoadedSource {
   file: string;
   format: RdfFormat;
+  /** The kept statements; for a source read into a store, made from its rows when asked for. */
   statements: Statement[];
+  /** Statements read, kept or not; when absent, `statements.length`. */
+  statementCount?: number;
+  /** Statements read whose predicate plays no part in the graph, so they were counted and not kept. */
+  unkeptStatements?: number;
+  /** The store rows of the kept statements, when the loader read the source into a store. */
+  rows?: StoredRows;
   errors: InputError[];
   allowComments: AllowComment[];
   /** Prefixes declared in the source, prefix → namespace IRI. */

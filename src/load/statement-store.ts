@@ -1,0 +1,189 @@
+// Compact storage of the statements a run keeps: term numbers and positions as integer columns.
+import type { Literal, Statement } from './statement.js';
+
+/** The graph column's value for a statement in the default graph. */
+export const DEFAULT_GRAPH = -1;
+
+/** Rows a column holds before it first grows. */
+const INITIAL_ROWS = 1024;
+
+/** A growable column of 32-bit integers. */
+class IntColumn {
+  values = new Int32Array(INITIAL_ROWS);
+
+  /** Makes room for `rows` values, doubling so that appending stays amortised constant time. */
+  reserve(rows: number): void {
+    if (rows <= this.values.length) return;
+    const grown = new Int32Array(Math.max(rows, this.values.length * 2));
+    grown.set(this.values);
+    this.values = grown;
+  }
+}
+
+/**
+ * Every kept statement of a run, one row each: subject, predicate, object and graph as numbers,
+ * and the file, line, column and object line of where it was stated. Terms (IRIs and `_:label`s)
+ * are numbered once in first-seen order; a literal object is stored as `-2 - k` for the k-th
+ * literal. Full `Statement` objects are made only for the rows that are asked for (evidence of
+ * reported findings), and the same row always gives the same object.
+ */
+export class StatementStore {
+  /** Term text → term number. */
+  readonly termNumbers = new Map<string, number>();
+  /** Term number → term text. */
+  readonly termTexts: string[] = [];
+  /** Each distinct predicate IRI once, in first-seen order. */
+  readonly predicateIris: string[] = [];
+  /** File names of the sources, by file number. */
+  readonly files: string[] = [];
+  /** Term numbers of blank nodes that are the subject of a statement that was not kept. */
+  readonly unkeptBlankSubjects = new Set<number>();
+  private readonly predicateNumbers = new Map<string, number>();
+  private readonly literalValues: string[] = [];
+  private readonly literalDatatypes: string[] = [];
+  private readonly literalLanguages: string[] = [];
+  // Datatype and language strings are shared, so a million labels hold one copy of "en".
+  private readonly sharedStrings = new Map<string, string>();
+  private readonly columns = {
+    subject: new IntColumn(),
+    predicate: new IntColumn(),
+    object: new IntColumn(),
+    graph: new IntColumn(),
+    file: new IntColumn(),
+    line: new IntColumn(),
+    column: new IntColumn(),
+    objectLine: new IntColumn(),
+  };
+  private readonly made = new Map<number, Statement>();
+  private rows = 0;
+
+  /** How many statements are stored. */
+  get size(): number {
+    return this.rows;
+  }
+
+  /** The number of a term, numbering it when new. */
+  term(text: string): number {
+    let termNumber = this.termNumbers.get(text);
+    if (termNumber === undefined) {
+      termNumber = this.termTexts.length;
+      this.termNumbers.set(text, termNumber);
+      this.termTexts.push(text);
+    }
+    return termNumber;
+  }
+
+  /** The number of a predicate IRI, numbering it when new. */
+  predicate(iri: string): number {
+    let predicateNumber = this.predicateNumbers.get(iri);
+    if (predicateNumber === undefined) {
+      predicateNumber = this.predicateIris.length;
+      this.predicateNumbers.set(iri, predicateNumber);
+      this.predicateIris.push(iri);
+    }
+    return predicateNumber;
+  }
+
+  /** The number of a source file, numbering it when new. */
+  file(name: string): number {
+    this.files.push(name);
+    return this.files.length - 1;
+  }
+
+  /** The object value of a literal, to pass to `addRow`. */
+  literal(literal: Literal): number {
+    this.literalValues.push(literal.value);
+    this.literalDatatypes.push(this.shared(literal.datatype));
+    this.literalLanguages.push(this.shared(literal.language));
+    return -2 - (this.literalValues.length - 1);
+  }
+
+  /** Appends one statement from numbers given by `term`, `predicate`, `literal` and `file`. */
+  addRow(row: { subject: number; predicate: number; object: number; graph: number; file: number; line: number; column: number; objectLine: number }): void {
+    const index = this.rows;
+    const { columns } = this;
+    if (index === columns.subject.values.length) for (const column of Object.values(columns)) column.reserve(index + 1);
+    columns.subject.values[index] = row.subject;
+    columns.predicate.values[index] = row.predicate;
+    columns.object.values[index] = row.object;
+    columns.graph.values[index] = row.graph;
+    columns.file.values[index] = row.file;
+    columns.line.values[index] = row.line;
+    columns.column.values[index] = row.column;
+    columns.objectLine.values[index] = row.objectLine;
+    this.rows++;
+  }
+
+  /** Appends a statement given as text; with `same`, the row gives back this very object. */
+  addStatement(statement: Statement, file: number, same = false): void {
+    if (same) this.made.set(this.rows, statement);
+    const { object } = statement;
+    this.addRow({
+      subject: this.term(statement.subject),
+      predicate: this.predicate(statement.predicate),
+      object: typeof object === 'string' ? this.term(object) : this.literal(object),
+      graph: statement.graph === '' ? DEFAULT_GRAPH : this.term(statement.graph),
+      file,
+      line: statement.position.line,
+      column: statement.position.column,
+      objectLine: statement.objectLine,
+    });
+  }
+
+  /** Subject term numbers by row (a view of the first `size` rows). */
+  get subjects(): Int32Array {
+    return this.columns.subject.values.subarray(0, this.rows);
+  }
+
+  /** Object values by row: a term number, or `-2 - k` for literal k. */
+  get objects(): Int32Array {
+    return this.columns.object.values.subarray(0, this.rows);
+  }
+
+  /** Predicate numbers by row, indexes into `predicateIris`. */
+  get predicates(): Int32Array {
+    return this.columns.predicate.values.subarray(0, this.rows);
+  }
+
+  /** The literal object of a row, or undefined when its object is a term. */
+  literalOf(row: number): Literal | undefined {
+    const object = this.columns.object.values[row];
+    if (object >= 0) return undefined;
+    const index = -2 - object;
+    return { value: this.literalValues[index], datatype: this.literalDatatypes[index], language: this.literalLanguages[index] };
+  }
+
+  /** The statement of a row, made once and then kept. */
+  statement(row: number): Statement {
+    let statement = this.made.get(row);
+    if (statement === undefined) {
+      const { columns } = this;
+      const object = columns.object.values[row];
+      const graph = columns.graph.values[row];
+      statement = {
+        subject: this.termTexts[columns.subject.values[row]],
+        predicate: this.predicateIris[columns.predicate.values[row]],
+        object: object >= 0 ? this.termTexts[object] : (this.literalOf(row) as Literal),
+        graph: graph === DEFAULT_GRAPH ? '' : this.termTexts[graph],
+        position: { file: this.files[columns.file.values[row]], line: columns.line.values[row], column: columns.column.values[row] },
+        objectLine: columns.objectLine.values[row],
+      };
+      this.made.set(row, statement);
+    }
+    return statement;
+  }
+
+  /** The statements of rows start..end-1, in order. */
+  statementsOf(start: number, end: number): Statement[] {
+    const statements: Statement[] = [];
+    for (let row = start; row < end; row++) statements.push(this.statement(row));
+    return statements;
+  }
+
+  private shared(text: string): string {
+    const known = this.sharedStrings.get(text);
+    if (known !== undefined) return known;
+    this.sharedStrings.set(text, text);
+    return text;
+  }
+}
