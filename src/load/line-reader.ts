@@ -96,8 +96,12 @@ export class LineReader {
     if (rest < chunk.length) this.carry = Buffer.from(chunk.subarray(rest));
   }
 
-  /** Reads what is left after the last chunk and settles the source's counts. */
-  finish(): LoadedSource {
+  /**
+   * Reads what is left after the last chunk and settles the source's counts. When the stream broke
+   * off (`brokenOff`), a last line without its newline is cut short and is not read.
+   */
+  finish(brokenOff = false): LoadedSource {
+    if (this.carry !== undefined && brokenOff) this.carry = undefined;
     if (this.carry !== undefined) {
       const rest = this.carry;
       this.carry = undefined;

@@ -210,7 +210,7 @@ async function readSource(source: StreamedSource, result: LoadResultWithSkipped,
       progress.lines = reader.lineNumber;
       report();
     }
-    const loaded = reader.finish();
+    const loaded = reader.finish(streamed.failure !== undefined);
     progress.lines = reader.lineNumber;
     report();
     result.sources.push(loaded);
