@@ -1,5 +1,6 @@
 // Benchmark at dump scale: `isapart check` on generated hierarchies next to a newline scan, n3's bare parse
 // and an oxigraph store with SPARQL queries for four rules, alternating in one run; prints tables and targets.
+import { createHash } from 'node:crypto';
 import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, totalmem } from 'node:os';
 import path from 'node:path';
@@ -51,6 +52,8 @@ interface Sample {
   cpuMs: number | null;
   rssBytes: number | null;
   values: Record<string, number>;
+  /** check only: digest of the findings (rule, nodes, evidence lines), to compare runs and builds. */
+  digest?: string;
 }
 
 /** All runs of all measures on one input. */
@@ -82,15 +85,26 @@ function failureOf(result: ChildResult): string | undefined {
   return undefined;
 }
 
-/** Per-rule finding counts from a JSON report, plus the members of all subclass cycles. */
-function findingCounts(reportFile: string): Record<string, number> {
-  const report = JSON.parse(readFileSync(reportFile, 'utf8')) as { summary: { statements: number; inputErrors: number }; findings: { ruleId: string; nodes: string[] }[] };
+/** One finding as the JSON report gives it, the parts the benchmark reads. */
+interface ReportedFinding {
+  ruleId: string;
+  nodes: string[];
+  evidence: { line: number }[];
+}
+
+/** Per-rule finding counts from a JSON report, plus the members of all subclass cycles, and a digest of the findings. */
+function findingCounts(reportFile: string): { counts: Record<string, number>; digest: string } {
+  const report = JSON.parse(readFileSync(reportFile, 'utf8')) as { summary: { statements: number; inputErrors: number }; findings: ReportedFinding[] };
+  const digest = createHash('sha256')
+    .update(JSON.stringify(report.findings.map((finding) => [finding.ruleId, finding.nodes, finding.evidence.map((statement) => statement.line)])))
+    .digest('hex')
+    .slice(0, 16);
   const counts: Record<string, number> = { statements: report.summary.statements, inputErrors: report.summary.inputErrors };
   for (const finding of report.findings) {
     counts[finding.ruleId] = (counts[finding.ruleId] ?? 0) + 1;
     if (finding.ruleId === 'subclass-cycle') counts['subclass-cycle.members'] = (counts['subclass-cycle.members'] ?? 0) + finding.nodes.length;
   }
-  return counts;
+  return { counts, digest };
 }
 
 /** Runs one measure once on one input. */
@@ -102,7 +116,8 @@ async function measureOnce(measure: Measure, input: GeneratedInput, work: { fold
     const result = await runNodeChild(args, ROOT, BOUNDS, nodeOptions);
     const failure = failureOf(result);
     if (failure) return failure;
-    return { ms: result.wallMs, cpuMs: result.cpuMs, rssBytes: result.maxRssBytes, values: findingCounts(output) };
+    const { counts, digest } = findingCounts(output);
+    return { ms: result.wallMs, cpuMs: result.cpuMs, rssBytes: result.maxRssBytes, values: counts, digest };
   }
   const args = ['--import', 'tsx', MEASURES_SCRIPT, measure, input.file, input.syntax, JSON.stringify(SCOPE)];
   const result = await runNodeChild(args, ROOT, BOUNDS);
@@ -189,6 +204,8 @@ function printInputTable(result: InputResult): void {
   const statements = [`generator ${input.counts.statements}`, `n3 ${medianValue(result, 'n3-parse', 'quads') ?? '—'}`, `check ${result.checkFindings?.statements ?? '—'}`];
   if (size.oxigraphRuns > 0) statements.push(`oxigraph store ${medianValue(result, 'oxigraph', 'quads') ?? '—'}`);
   console.log(`statements read: ${statements.join(', ')}; check input errors: ${result.checkFindings?.inputErrors ?? '—'}`);
+  const digests = new Set((result.samples.get('check') ?? []).map((sample) => sample.digest));
+  if (digests.size > 0) console.log(`findings digest (rule, nodes, evidence lines): ${[...digests].join(', ')}${digests.size > 1 ? ' — runs differ' : ', the same in every run'}`);
   printCountsTable(result);
 }
 
