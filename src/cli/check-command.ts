@@ -6,6 +6,7 @@ import { toJson } from '../report/json.js';
 import { toSarif } from '../report/sarif.js';
 import { toText } from '../report/text.js';
 import type { Terminal } from './terminal.js';
+import { LoadProgressBar, progressWanted } from './progress.js';
 import { printInputErrors, printRuleFailures } from './print-problems.js';
 import { outputPathProblem, writeFailureReason, writeFileAtomically } from './write-output.js';
 
@@ -21,6 +22,8 @@ export interface CheckCommandOptions {
   failOn: FailOn;
   color: boolean;
   quiet?: boolean;
+  /** false for --no-progress. */
+  progress?: boolean;
 }
 
 const FORMATTERS = { text: toText, json: toJson, sarif: toSarif } as const;
@@ -74,6 +77,9 @@ export async function runCheckCommand(
     terminal.err(`isapart: -o ${options.output}: cannot write the report there: ${outputProblem.reason}\n  hint: ${outputProblem.hint}\n`);
     return 2;
   }
+  const bar = progressWanted({ progress: options.progress !== false, quiet: options.quiet }, terminal) && terminal.errStream !== undefined
+    ? new LoadProgressBar(terminal.errStream)
+    : undefined;
   const result = await check({
     paths,
     cwd: terminal.cwd,
@@ -85,7 +91,8 @@ export async function runCheckCommand(
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,
-  });
+    onProgress: bar === undefined ? undefined : (progress) => bar.update(progress),
+  }).finally(() => bar?.stop());
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
   const quietText = options.quiet === true && options.format === 'text';
   const shown = quietText ? result.findings.filter((finding) => finding.suppression || atOrAbove(finding.level, threshold)) : result.findings;
