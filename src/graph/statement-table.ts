@@ -35,7 +35,7 @@ export function isLiteralObject(object: number): boolean {
  */
 export function tabulateStatements(sources: readonly LoadedSource[]): StatementTable {
   const store = sharedStore(sources) ?? copiedStore(sources);
-  const terms = new TermInterner(store.termNumbers, store.termTexts);
+  const terms = new TermInterner(store);
   return {
     rowCount: store.size,
     statement: (row) => store.statement(row),

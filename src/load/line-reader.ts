@@ -59,8 +59,8 @@ export class LineReader {
   private readonly quads: boolean;
   private readonly predicateTable = new ByteTable();
   private readonly knownPredicates: KnownPredicate[] = [];
-  /** Written terms (`<IRI>` or `_:label`, as bytes) → store term numbers. */
-  private readonly termTable = new ByteTable();
+  /** Blank node labels of this file (`_:label`, as bytes) → store term numbers. */
+  private readonly blankTable = new ByteTable();
   private readonly scanned = emptyScan();
   private carry: Buffer | undefined;
   private statementCount = 0;
@@ -244,20 +244,17 @@ export class LineReader {
 
   /** The store's number of a written term, decoded to text only the first time it is met. */
   private termNumber(bytes: Buffer, start: number, end: number, ascii: boolean): number {
-    let termNumber = this.termTable.get(bytes, start, end);
+    // An IRI's bytes between its brackets are its text; a blank node's text adds the file's prefix.
+    if (bytes[start] !== UNDERSCORE) return this.options.store.termOfBytes(bytes, start + 1, end - 1, ascii);
+    let termNumber = this.blankTable.get(bytes, start, end);
     if (termNumber < 0) {
-      termNumber = this.options.store.term(this.termText(bytes, start, end, ascii));
-      this.termTable.set(bytes, start, end, termNumber);
+      termNumber = this.options.store.term(this.blankText(bytes, start, end));
+      this.blankTable.set(bytes, start, end, termNumber);
     }
     return termNumber;
   }
 
-  /** An `<IRI>` as its IRI, a `_:label` as `_:` + the file's prefix + label. */
-  private termText(bytes: Buffer, start: number, end: number, ascii: boolean): string {
-    if (bytes[start] === UNDERSCORE) return this.blankText(bytes, start, end);
-    return this.text(bytes, start + 1, end - 1, ascii);
-  }
-
+  /** A `_:label` as `_:` + the file's prefix + label. */
   private blankText(bytes: Buffer, start: number, end: number): string {
     return `_:${this.options.labelPrefix}${bytes.toString('latin1', start + 2, end)}`;
   }

@@ -1,5 +1,6 @@
 // Compact storage of the statements a run keeps: term numbers and positions as integer columns.
 import type { Literal, Statement } from './statement.js';
+import { ByteTable } from './byte-table.js';
 
 /** The graph column's value for a statement in the default graph. */
 export const DEFAULT_GRAPH = -1;
@@ -28,10 +29,11 @@ class IntColumn {
  * reported findings), and the same row always gives the same object.
  */
 export class StatementStore {
-  /** Term text → term number. */
-  readonly termNumbers = new Map<string, number>();
   /** Term number → term text. */
   readonly termTexts: string[] = [];
+  /** UTF-8 bytes of a term's text → term number, so the fast path finds a term without decoding it. */
+  private readonly termIndex = new ByteTable();
+  private scratch = Buffer.alloc(4096);
   /** Each distinct predicate IRI once, in first-seen order. */
   readonly predicateIris: string[] = [];
   /** File names of the sources, by file number. */
@@ -64,13 +66,39 @@ export class StatementStore {
 
   /** The number of a term, numbering it when new. */
   term(text: string): number {
-    let termNumber = this.termNumbers.get(text);
-    if (termNumber === undefined) {
-      termNumber = this.termTexts.length;
-      this.termNumbers.set(text, termNumber);
-      this.termTexts.push(text);
-    }
+    const length = this.encode(text);
+    const known = this.termIndex.get(this.scratch, 0, length);
+    if (known >= 0) return known;
+    return this.addTerm(this.scratch, 0, length, text);
+  }
+
+  /** The number of a term, or -1 when it has none. */
+  termNumberOf(text: string): number {
+    const length = this.encode(text);
+    return this.termIndex.get(this.scratch, 0, length);
+  }
+
+  /**
+   * The number of the term whose text is the UTF-8 bytes[start..end), numbering it when new; the
+   * bytes are decoded only then (latin1 when `ascii`, which gives the same text faster).
+   */
+  termOfBytes(bytes: Buffer, start: number, end: number, ascii: boolean): number {
+    const known = this.termIndex.get(bytes, start, end);
+    if (known >= 0) return known;
+    return this.addTerm(bytes, start, end, bytes.toString(ascii ? 'latin1' : 'utf8', start, end));
+  }
+
+  private addTerm(bytes: Buffer, start: number, end: number, text: string): number {
+    const termNumber = this.termTexts.length;
+    this.termIndex.set(bytes, start, end, termNumber);
+    this.termTexts.push(text);
     return termNumber;
+  }
+
+  /** Writes a text's UTF-8 bytes into the scratch buffer and returns their length. */
+  private encode(text: string): number {
+    if (text.length * 3 > this.scratch.length) this.scratch = Buffer.alloc(text.length * 3);
+    return this.scratch.write(text, 0, 'utf8');
   }
 
   /** The number of a predicate IRI, numbering it when new. */
