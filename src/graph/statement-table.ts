@@ -65,8 +65,8 @@ function sharedStore(sources: readonly LoadedSource[]): StatementStore | undefin
 function copiedStore(sources: readonly LoadedSource[]): StatementStore {
   const store = new StatementStore();
   for (const source of sources) {
-    const file = store.file(source.file);
-    for (const statement of source.statements) store.addStatement(statement, file, true);
+    store.file(source.file);
+    for (const statement of source.statements) store.addStatement(statement, true);
   }
   return store;
 }

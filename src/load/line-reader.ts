@@ -54,7 +54,6 @@ export class LineReader {
   lineNumber = 0;
   /** How many lines were not simple and went to n3. */
   linesReadByN3 = 0;
-  private readonly fileNumber: number;
   private readonly firstRow: number;
   private readonly quads: boolean;
   private readonly predicateTable = new ByteTable();
@@ -69,7 +68,7 @@ export class LineReader {
 
   constructor(private readonly options: LineReaderOptions) {
     const { store } = options;
-    this.fileNumber = store.file(options.file);
+    store.file(options.file);
     this.firstRow = store.size;
     this.quads = options.format === 'n-quads';
     this.source = { file: options.file, format: options.format, statements: [], errors: [], allowComments: [], prefixes: {} };
@@ -220,7 +219,6 @@ export class LineReader {
       predicate,
       object,
       graph,
-      file: this.fileNumber,
       line: this.lineNumber,
       column,
       objectLine: this.lineNumber,
@@ -295,7 +293,6 @@ export class LineReader {
       }
       options.store.addStatement(
         { ...statement, position: { ...statement.position, line: statement.position.line + offset }, objectLine: statement.objectLine + offset },
-        this.fileNumber,
       );
     }
     for (const comment of parsed.allowComments) this.source.allowComments.push({ ...comment, line: comment.line + offset });

@@ -12,18 +12,45 @@ const INITIAL_ROWS = 1024;
 class IntColumn {
   values = new Int32Array(INITIAL_ROWS);
 
-  /** Makes room for `rows` values, doubling so that appending stays amortised constant time. */
+  /** Makes room for `rows` values, growing by half so that appending stays amortised constant time. */
   reserve(rows: number): void {
     if (rows <= this.values.length) return;
-    const grown = new Int32Array(Math.max(rows, this.values.length * 2));
+    const grown = new Int32Array(Math.max(rows, Math.ceil(this.values.length * 1.5)));
     grown.set(this.values);
     this.values = grown;
   }
 }
 
 /**
+ * A column whose rows mostly hold one default value (a subject in column 1, an object on the
+ * subject's line, the default graph): no memory at all until a row holds another value.
+ */
+class OptionalColumn {
+  private column: IntColumn | undefined;
+
+  constructor(private readonly fallback: number) {}
+
+  /** Sets row's value; `capacity` is the row count the store has room for. */
+  set(row: number, value: number, capacity: number): void {
+    if (this.column === undefined) {
+      if (value === this.fallback) return;
+      this.column = new IntColumn();
+      this.column.values = new Int32Array(capacity).fill(this.fallback);
+    }
+    this.column.reserve(capacity);
+    this.column.values[row] = value;
+  }
+
+  /** The value of a row. */
+  get(row: number): number {
+    return this.column === undefined ? this.fallback : this.column.values[row];
+  }
+}
+
+/**
  * Every kept statement of a run, one row each: subject, predicate, object and graph as numbers,
- * and the file, line, column and object line of where it was stated. Terms (IRIs and `_:label`s)
+ * and the file, line, column and object line of where it was stated (the file by row ranges, and
+ * column, object line and graph only where they differ from 1, the line and the default graph). Terms (IRIs and `_:label`s)
  * are numbered once in first-seen order; a literal object is stored as `-2 - k` for the k-th
  * literal. Full `Statement` objects are made only for the rows that are asked for (evidence of
  * reported findings), and the same row always gives the same object.
@@ -50,12 +77,14 @@ export class StatementStore {
     subject: new IntColumn(),
     predicate: new IntColumn(),
     object: new IntColumn(),
-    graph: new IntColumn(),
-    file: new IntColumn(),
     line: new IntColumn(),
-    column: new IntColumn(),
-    objectLine: new IntColumn(),
   };
+  private readonly graphs = new OptionalColumn(DEFAULT_GRAPH);
+  private readonly subjectColumns = new OptionalColumn(1);
+  /** Object line minus line. */
+  private readonly objectLineOffsets = new OptionalColumn(0);
+  /** The first row of each file; a file's rows are the ones added after it was opened and before the next. */
+  private readonly fileFirstRows: number[] = [];
   private readonly made = new Map<number, Statement>();
   private rows = 0;
 
@@ -112,10 +141,23 @@ export class StatementStore {
     return predicateNumber;
   }
 
-  /** The number of a source file, numbering it when new. */
+  /** Opens a source file: the rows added from now on, until the next file is opened, are its statements. */
   file(name: string): number {
     this.files.push(name);
+    this.fileFirstRows.push(this.rows);
     return this.files.length - 1;
+  }
+
+  /** The file number of a row: the last file opened at or before it. */
+  private fileOf(row: number): number {
+    let low = 0;
+    let high = this.fileFirstRows.length - 1;
+    while (low < high) {
+      const middle = (low + high + 1) >>> 1;
+      if (this.fileFirstRows[middle] <= row) low = middle;
+      else high = middle - 1;
+    }
+    return low;
   }
 
   /** The object value of a literal, to pass to `addRow`. */
@@ -126,24 +168,24 @@ export class StatementStore {
     return -2 - (this.literalValues.length - 1);
   }
 
-  /** Appends one statement from numbers given by `term`, `predicate`, `literal` and `file`. */
-  addRow(row: { subject: number; predicate: number; object: number; graph: number; file: number; line: number; column: number; objectLine: number }): void {
+  /** Appends one statement of the file opened last, from numbers given by `term`, `predicate` and `literal`. */
+  addRow(row: { subject: number; predicate: number; object: number; graph: number; line: number; column: number; objectLine: number }): void {
     const index = this.rows;
     const { columns } = this;
     if (index === columns.subject.values.length) for (const column of Object.values(columns)) column.reserve(index + 1);
     columns.subject.values[index] = row.subject;
     columns.predicate.values[index] = row.predicate;
     columns.object.values[index] = row.object;
-    columns.graph.values[index] = row.graph;
-    columns.file.values[index] = row.file;
     columns.line.values[index] = row.line;
-    columns.column.values[index] = row.column;
-    columns.objectLine.values[index] = row.objectLine;
+    const capacity = columns.subject.values.length;
+    this.graphs.set(index, row.graph, capacity);
+    this.subjectColumns.set(index, row.column, capacity);
+    this.objectLineOffsets.set(index, row.objectLine - row.line, capacity);
     this.rows++;
   }
 
-  /** Appends a statement given as text; with `same`, the row gives back this very object. */
-  addStatement(statement: Statement, file: number, same = false): void {
+  /** Appends a statement given as text to the file opened last; with `same`, the row gives back this very object. */
+  addStatement(statement: Statement, same = false): void {
     if (same) this.made.set(this.rows, statement);
     const { object } = statement;
     this.addRow({
@@ -151,7 +193,6 @@ export class StatementStore {
       predicate: this.predicate(statement.predicate),
       object: typeof object === 'string' ? this.term(object) : this.literal(object),
       graph: statement.graph === '' ? DEFAULT_GRAPH : this.term(statement.graph),
-      file,
       line: statement.position.line,
       column: statement.position.column,
       objectLine: statement.objectLine,
@@ -187,14 +228,15 @@ export class StatementStore {
     if (statement === undefined) {
       const { columns } = this;
       const object = columns.object.values[row];
-      const graph = columns.graph.values[row];
+      const graph = this.graphs.get(row);
+      const line = columns.line.values[row];
       statement = {
         subject: this.termTexts[columns.subject.values[row]],
         predicate: this.predicateIris[columns.predicate.values[row]],
         object: object >= 0 ? this.termTexts[object] : (this.literalOf(row) as Literal),
         graph: graph === DEFAULT_GRAPH ? '' : this.termTexts[graph],
-        position: { file: this.files[columns.file.values[row]], line: columns.line.values[row], column: columns.column.values[row] },
-        objectLine: columns.objectLine.values[row],
+        position: { file: this.files[this.fileOf(row)], line, column: this.subjectColumns.get(row) },
+        objectLine: line + this.objectLineOffsets.get(row),
       };
       this.made.set(row, statement);
     }

@@ -8,12 +8,12 @@ import type { StatementStore } from './statement-store.js';
  * statements read back from the store.
  */
 export function storeSource(parsed: LoadedSource, store: StatementStore, keep: ReadonlySet<string> | undefined): LoadedSource {
-  const file = store.file(parsed.file);
+  store.file(parsed.file);
   const start = store.size;
   let unkept = 0;
   for (const statement of parsed.statements) {
     if (keep === undefined || keep.has(statement.predicate)) {
-      store.addStatement(statement, file);
+      store.addStatement(statement);
     } else {
       unkept++;
       if (statement.subject.startsWith('_:')) store.unkeptBlankSubjects.add(store.term(statement.subject));

@@ -1,10 +1,10 @@
 // Large N-Triples through the fast path: a bad line mid-file, truncated gzip, standard input, a million-long chain and cycle.
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { Readable } from 'node:stream';
 import { gzipSync } from 'node:zlib';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { check } from '../../src/check.js';
 import { writeLines } from './scale-fixtures.js';
 import { runCli } from '../cli/terminal-fake.js';
@@ -27,6 +27,7 @@ describe('a bad line in the middle of a large N-Triples file', () => {
     broken[badLine - 1] = broken[badLine - 1].replace(/" \.$/, ' .');
     writeFileSync(path.join(dir, 'broken.nt'), broken.join('\n'));
   });
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
   it('is an error at its exact line, the rest of the file is still read, and the exit code is 2', async () => {
     const broken = await runCli(dir, ['check', 'broken.nt', '-f', 'json', '--fail-on', 'never']);
@@ -81,6 +82,7 @@ describe('a million statements through the fast path', () => {
       index + 1 < SIZE ? `${iri(index)} ${SUBCLASS_OF} ${iri(index + 1)} .` : `${iri(0)} ${SUBCLASS_OF} ${iri(2)} .`,
     );
     const result = await check({ paths: ['chain.nt'], cwd: dir });
+    rmSync(dir, { recursive: true, force: true });
     expect(result.context.inputErrors).toEqual([]);
     expect(result.graph.nodeCount).toBe(SIZE);
     const unsuppressed = result.findings.filter((finding) => finding.ruleId !== 'unused-allow');
@@ -97,6 +99,7 @@ describe('a million statements through the fast path', () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'isapart-cycle-'));
     await writeLines(path.join(dir, 'cycle.nt'), SIZE, (index) => `${iri(index)} ${SUBCLASS_OF} ${iri((index + 1) % SIZE)} .`);
     const result = await check({ paths: ['cycle.nt'], cwd: dir });
+    rmSync(dir, { recursive: true, force: true });
     expect(result.context.inputErrors).toEqual([]);
     const cycles = result.findings.filter((finding) => finding.ruleId === 'subclass-cycle');
     expect(cycles).toHaveLength(1);

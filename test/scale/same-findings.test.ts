@@ -1,5 +1,5 @@
 // Findings are the same whether N-Triples is read by the fast line path or whole by n3: demo, WordNet, a generated 50k-class file.
-import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -67,6 +67,7 @@ describe('the same findings from the fast line path and from n3 reading files wh
     writeWordnetNTriples({ synsets, file: path.join(dir, 'nouns.nt') });
     writeWordnetConfig({ file: path.join(dir, 'isapart.yaml'), root: synsetIri(entity?.offset ?? ''), presets: ['rdfs'] });
     const { fast, whole } = await bothWays({ paths: ['nouns.nt'], cwd: dir });
+    rmSync(dir, { recursive: true, force: true });
     expect(fast.findings.length).toBeGreaterThan(50);
     expect(outcome(fast)).toEqual(outcome(whole));
   }, 120_000);
@@ -76,6 +77,7 @@ describe('the same findings from the fast line path and from n3 reading files wh
     const dir = mkdtempSync(path.join(tmpdir(), 'isapart-generated-'));
     await writeHierarchy(path.join(dir, 'g50k.nt'), { classes: 50_000 }, 'n-triples');
     const { fast, whole } = await bothWays({ paths: ['g50k.nt'], cwd: dir });
+    rmSync(dir, { recursive: true, force: true });
     expect(fast.findings.filter((finding) => finding.ruleId === 'subclass-cycle').length).toBeGreaterThan(0);
     expect(outcome(fast)).toEqual(outcome(whole));
   }, 120_000);
