@@ -81,7 +81,10 @@ function median(values: number[]): number {
 /** Why a child run does not count, or undefined when it does. */
 function failureOf(result: ChildResult): string | undefined {
   if (result.stopped) return result.stopped;
-  if (result.exitCode !== 0) return `exit ${result.exitCode}: ${result.stderr.trim().split('\n').slice(-3).join(' / ').slice(0, 300)}`;
+  if (result.exitCode !== 0) {
+    const lines = result.stderr.split('\n').filter((line) => line.trim() !== '');
+    return `exit ${result.exitCode}: ${lines.length > 0 ? lines.slice(-3).join(' / ').slice(0, 300) : 'nothing on stderr'}`;
+  }
   return undefined;
 }
 
@@ -107,6 +110,9 @@ function findingCounts(reportFile: string): { counts: Record<string, number>; di
   return { counts, digest };
 }
 
+/** The standard error of the last child, for the log when it failed. */
+let lastStderr = '';
+
 /** Runs one measure once on one input. */
 async function measureOnce(measure: Measure, input: GeneratedInput, work: { folder: string; config: string; checkFlags: string[]; profileDir?: string }): Promise<Sample | string> {
   if (measure === 'check') {
@@ -114,6 +120,7 @@ async function measureOnce(measure: Measure, input: GeneratedInput, work: { fold
     const nodeOptions = work.profileDir ? ['--cpu-prof', '--cpu-prof-dir', work.profileDir] : [];
     const args = [BIN, 'check', input.file, '-c', work.config, '--format', 'json', '-o', output, '--fail-on', 'never', ...work.checkFlags];
     const result = await runNodeChild(args, ROOT, BOUNDS, nodeOptions);
+    lastStderr = result.stderr;
     const failure = failureOf(result);
     if (failure) return failure;
     const { counts, digest } = findingCounts(output);
@@ -121,6 +128,7 @@ async function measureOnce(measure: Measure, input: GeneratedInput, work: { fold
   }
   const args = ['--import', 'tsx', MEASURES_SCRIPT, measure, input.file, input.syntax, JSON.stringify(SCOPE)];
   const result = await runNodeChild(args, ROOT, BOUNDS);
+  lastStderr = result.stderr;
   const failure = failureOf(result);
   if (failure) return failure;
   const values = JSON.parse(result.stdout.trim().split('\n').pop() ?? '{}') as Record<string, number>;
@@ -138,6 +146,7 @@ async function measureInput(size: SizeSpec, input: GeneratedInput, work: { folde
       if (typeof sample === 'string') {
         result.failures.set(measure, sample);
         log(`  run ${run + 1}: ${measure} not measured: ${sample}`);
+        if (lastStderr.trim() !== '') log(`  its standard error, first 3000 characters:\n${lastStderr.slice(0, 3000)}`);
         continue;
       }
       const list = result.samples.get(measure) ?? [];
@@ -292,7 +301,7 @@ const program = new Command('scale')
   .description('Times isapart check on generated hierarchies next to a newline scan, n3 and oxigraph (needs `npm run build`).')
   .option('--sizes <keys>', `comma-separated, from ${SIZES.map((size) => size.key).join(',')}`, DEFAULT_SIZES)
   .option('--runs <n>', 'runs per measure instead of the defaults (5 at 200k, 3 at 2M)', positiveInteger)
-  .option('--oxigraph-runs <n>', 'runs of the oxigraph measure instead of the defaults (5 at 200k, 1 at 2M); 0 skips it', (value) => (value === '0' ? 0 : positiveInteger(value)))
+  .option('--oxigraph-runs <n>', 'at most n runs of the oxigraph measure per size (defaults: 5 at 200k, 1 at 2M); 0 skips it', (value) => (value === '0' ? 0 : positiveInteger(value)))
   .option('--isapart <file>', 'the isapart command to time, e.g. a build of an earlier commit', path.join(ROOT, 'bin', 'isapart.js'))
   .option('--profile', 'also profile one check of the first N-Triples size with node --cpu-prof')
   .option('--keep-inputs', 'keep the 2M file in the cache (it is deleted after its measures otherwise)')
@@ -321,7 +330,7 @@ const results: InputResult[] = [];
 let profiled = false;
 for (const size of SIZES.filter((spec) => wanted.includes(spec.key))) {
   const runs = options.runs ?? size.runs;
-  const spec = { ...size, runs, oxigraphRuns: size.oxigraphRuns === 0 ? 0 : Math.min(options.oxigraphRuns ?? size.oxigraphRuns, runs) };
+  const spec = { ...size, runs, oxigraphRuns: Math.min(options.oxigraphRuns ?? Infinity, size.oxigraphRuns, runs) };
   let input: GeneratedInput;
   try {
     input = await generatedInput(spec.classes, spec.syntax, log);
