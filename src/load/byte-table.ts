@@ -38,7 +38,8 @@ export class ByteTable {
     if (this.count === this.values.length) this.growEntries();
     const length = end - start;
     if (this.arenaUsed + length > this.arena.length) {
-      const grown = Buffer.alloc(Math.max(this.arena.length * 2, this.arenaUsed + length));
+      // Growing by half, not doubling: for millions of terms the arena is one of the largest buffers of a run.
+      const grown = Buffer.allocUnsafe(Math.max(Math.ceil(this.arena.length * 1.5), this.arenaUsed + length));
       this.arena.copy(grown, 0, 0, this.arenaUsed);
       this.arena = grown;
     }
@@ -75,7 +76,7 @@ export class ByteTable {
   }
 
   private growEntries(): void {
-    const size = this.values.length * 2;
+    const size = Math.ceil(this.values.length * 1.5);
     const grow = (column: Int32Array): Int32Array => {
       const grown = new Int32Array(size);
       grown.set(column);

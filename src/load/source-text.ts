@@ -1,38 +1,8 @@
-// Turning the bytes of a source into text: gzip recognised by its magic bytes, UTF-8 checked, BOM dropped.
-import { gunzip } from 'node:zlib';
-import { promisify } from 'node:util';
+// Turning the bytes of a source into text: UTF-8 checked, BOM dropped (gzip is inflated while streaming, in byte-source.ts).
 import type { InputError } from './statement.js';
-
-const gunzipAsync = promisify(gunzip);
 
 /** The text of a source, or the error that kept it from being read. */
 export type SourceText = { text: string } | { error: InputError };
-
-/** Whether bytes start with the gzip magic number 1f 8b. */
-export function isGzip(bytes: Uint8Array): boolean {
-  return bytes.length >= 2 && bytes[0] === 0x1f && bytes[1] === 0x8b;
-}
-
-/** Decompresses gzip bytes when they are gzip, then decodes UTF-8 (dropping a BOM). */
-export async function toSourceText(bytes: Uint8Array, file: string): Promise<SourceText> {
-  let plain = bytes;
-  if (isGzip(bytes)) {
-    try {
-      plain = await gunzipAsync(bytes);
-    } catch (error) {
-      return {
-        error: {
-          file,
-          line: 0,
-          column: 0,
-          message: `${file} starts as gzip but cannot be decompressed (${(error as Error).message}); it was not read.`,
-          hint: 'the gzip stream is truncated or corrupt: check it with gzip -t, or compress the file again',
-        },
-      };
-    }
-  }
-  return decodeText(plain, file);
-}
 
 /** Decodes UTF-8 bytes (dropping a BOM), or the error naming where the first invalid sequence starts. */
 export function decodeText(plain: Uint8Array, file: string): SourceText {
