@@ -305,7 +305,7 @@ const program = new Command('scale')
   .option('--isapart <file>', 'the isapart command to time, e.g. a build of an earlier commit', path.join(ROOT, 'bin', 'isapart.js'))
   .option('--profile', 'also profile one check of the first N-Triples size with node --cpu-prof')
   .option('--keep-inputs', 'keep the 2M file in the cache (it is deleted after its measures otherwise)')
-  .addHelpText('after', `\nGenerated inputs are cached in ${path.join('<tmpdir>', 'isapart-bench-cache')}, keyed by size and the generator's source.\nA child is stopped past ${BOUNDS.timeoutMs / 60_000} min or ${BOUNDS.maxRssBytes / GIB} GiB RSS and its cell marked.`);
+  .addHelpText('after', `\nTables go to standard output as markdown (for test/bench/RESULTS.md), progress to standard error.\nA full run takes tens of minutes and needs about 2 GiB free in the temporary folder for the 2M file.\nGenerated inputs are cached in ${path.join('<tmpdir>', 'isapart-bench-cache')}, keyed by size and the generator's source.\nA child is stopped past ${BOUNDS.timeoutMs / 60_000} min or ${BOUNDS.maxRssBytes / GIB} GiB RSS and its cell marked.`);
 program.parse();
 const options = program.opts<{ isapart: string; sizes: string; runs?: number; oxigraphRuns?: number; profile?: boolean; keepInputs?: boolean }>();
 const wanted = options.sizes.split(',').map((key) => key.trim());
