@@ -15,6 +15,8 @@ import type { HierarchyGraph } from './graph/hierarchy-graph.js';
 import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
 import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources, type LoadResultWithSkipped } from './load/sources.js';
+import type { LoadProgress } from './load/byte-source.js';
+import { predicatesTheGraphReads } from './graph/read-predicates.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { findingTermFacts } from './report/term-facts.js';
 import { buildRoleMap } from './roles/role-map.js';
@@ -39,6 +41,10 @@ export interface CheckOptions {
   color?: boolean;
   /** The command line as typed, for SARIF's invocation record. */
   commandLine?: string;
+  /** Called while sources are read, with how far reading has got (the CLI draws a progress bar from it). */
+  onProgress?: (progress: LoadProgress) => void;
+  /** false reads N-Triples and N-Quads whole with n3 instead of line by line (for comparisons; same findings). */
+  fastLines?: boolean;
 }
 
 /** Everything a run produced: findings, the context every formatter reads, and the graph. */
@@ -56,9 +62,19 @@ const SEVERITY: Record<Level, number> = { error: 3, warning: 2, note: 1 };
 export async function check(options: CheckOptions): Promise<CheckResult> {
   const startTime = new Date();
   const cwd = options.cwd ?? process.cwd();
-  // The loader needs the config's JSON-LD context map; checkLoaded reads the config again and reports its errors.
-  const contexts = new Map(Object.entries(readConfig(options, cwd).config.contexts));
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin, baseIri: options.baseIri, contexts });
+  // The loader needs two things from the config: the predicates the graph reads (only their
+  // statements are stored, the others are counted as read) and JSON-LD's local contexts.
+  // checkLoaded reads the config again and reports its errors.
+  const { config } = readConfig(options, cwd);
+  const loaded = await loadSources(options.paths, {
+    cwd,
+    stdin: options.stdin,
+    baseIri: options.baseIri,
+    contexts: new Map(Object.entries(config.contexts)),
+    keepPredicates: predicatesTheGraphReads(buildRoleMap(config.presets, config.roles)),
+    fastLines: options.fastLines,
+    onProgress: options.onProgress,
+  });
   return checkLoaded(loaded, options, startTime);
 }
 
@@ -113,7 +129,7 @@ export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions
     sources: loaded.sources.map((source) => ({
       file: source.file,
       format: source.format,
-      statements: source.statements.length,
+      statements: source.statementCount ?? source.statements.length,
     })),
     inputErrors,
     inputWarnings,
@@ -181,7 +197,8 @@ function namesUnder(folder: string, shown: string[]): string {
 
 /** A warning when sources were read but none held a statement, so that an empty export does not pass unnoticed. */
 function nothingReadWarnings(sources: LoadedSource[]): InputError[] {
-  if (sources.length === 0 || sources.some((source) => source.statements.length > 0 || source.errors.length > 0)) return [];
+  const read = (source: LoadedSource): number => source.statementCount ?? source.statements.length;
+  if (sources.length === 0 || sources.some((source) => read(source) > 0 || source.errors.length > 0)) return [];
   const files = sources.length === 1 ? `${sources[0].file} holds` : `none of the ${sources.length} files read holds`;
   return [
     {

@@ -12,6 +12,7 @@ import { toSarif } from '../report/sarif.js';
 import { toSparqlUpdate } from '../report/sparql-update.js';
 import { toText } from '../report/text.js';
 import type { Terminal } from './terminal.js';
+import { LoadProgressBar, progressWanted } from './progress.js';
 import { printInputErrors, printRuleFailures } from './print-problems.js';
 import { outputPathProblem, writeFailureReason, writeFileAtomically } from './write-output.js';
 
@@ -30,6 +31,8 @@ export interface CheckCommandOptions {
   quiet?: boolean;
   baseline?: string;
   since?: string;
+  /** false for --no-progress. */
+  progress?: boolean;
 }
 
 const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, html: toHtml, 'sparql-update': toSparqlUpdate } as const;
@@ -88,6 +91,9 @@ export async function runCheckCommand(
     terminal.err(`isapart: -o ${options.output}: cannot write the report there: ${outputProblem.reason}\n  hint: ${outputProblem.hint}\n`);
     return 2;
   }
+  const bar = progressWanted({ progress: options.progress !== false, quiet: options.quiet }, terminal) && terminal.errStream !== undefined
+    ? new LoadProgressBar(terminal.errStream)
+    : undefined;
   const checkOptions: CheckOptions = {
     paths,
     cwd: terminal.cwd,
@@ -100,6 +106,7 @@ export async function runCheckCommand(
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,
+    onProgress: bar === undefined ? undefined : (progress) => bar.update(progress),
   };
   if (options.baseline !== undefined && options.since !== undefined) {
     terminal.err('isapart: --baseline and --since each give the baseline; use one of them\n');
@@ -113,7 +120,7 @@ export async function runCheckCommand(
     printInputErrors([baseline.error], terminal);
     return 2;
   }
-  let result = await check(checkOptions);
+  let result = await check(checkOptions).finally(() => bar?.stop());
   if (baseline !== undefined) {
     const compared = await baseline.prepared(result);
     if ('error' in compared) {

@@ -99,6 +99,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--since <rev>', 'lint the same paths as they were at git revision REV (read from git, no checkout) and use that as the baseline')
     .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
     .option('-q, --quiet', 'text output: only findings at or above --fail-on, and errors')
+    .option('--no-progress', 'no progress bar while reading (it is drawn on standard error only when that is a terminal, and never in CI or with -q)')
     .addHelpText('after', CHECK_EXAMPLES)
     .action(async (paths: string[], options: CheckCommandOptions) => {
       setExit(await runCheckCommand(paths, options, terminal, commandLine));

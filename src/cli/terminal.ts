@@ -6,6 +6,8 @@ export interface Terminal {
   err(text: string): void;
   /** Whether standard output is a terminal (colour is off otherwise). */
   outIsTty: boolean;
+  /** Standard error as a stream, for the progress bar (drawn only when it is a terminal). */
+  errStream?: NodeJS.WritableStream & { isTTY?: boolean };
   env: Record<string, string | undefined>;
   stdin: NodeJS.ReadableStream;
   cwd: string;
@@ -17,6 +19,7 @@ export function processTerminal(): Terminal {
     out: (text) => process.stdout.write(text),
     err: (text) => process.stderr.write(text),
     outIsTty: Boolean(process.stdout.isTTY),
+    errStream: process.stderr,
     env: process.env,
     stdin: process.stdin,
     cwd: process.cwd(),

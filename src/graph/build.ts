@@ -25,14 +25,14 @@ import {
   walkList,
 } from './owl-axioms.js';
 import { inScopeTest } from './scope.js';
-import { LITERAL_OBJECT, tabulateStatements, type StatementTable } from './statement-table.js';
+import { tabulateStatements, type StatementTable } from './statement-table.js';
 
 /** Lexical forms of a true owl:deprecated (xsd:boolean allows "true" and "1", XSD 1.1 Part 2; from memory). */
 const TRUE_FORMS: ReadonlySet<string> = new Set(['true', '1']);
 
 /** Whether a literal is a true boolean: `"true"^^xsd:boolean`, `"true"`, `"1"`. */
-function isTrueLiteral(object: string | Literal): boolean {
-  if (typeof object === 'string') return false;
+function isTrueLiteral(object: Literal | undefined): boolean {
+  if (object === undefined) return false;
   const plain = object.datatype === XSD_STRING || object.datatype === '';
   return (plain || object.datatype === XSD_BOOLEAN) && TRUE_FORMS.has(object.value.trim());
 }
@@ -98,7 +98,7 @@ class StatementReader {
 
   /** Reads all statements in source order. */
   readAll(): void {
-    for (let row = 0; row < this.table.statements.length; row++) this.read(row);
+    for (let row = 0; row < this.table.rowCount; row++) this.read(row);
   }
 
   private factsOf(iri: string): PredicateFacts {
@@ -126,7 +126,7 @@ class StatementReader {
     const object = this.table.objects[row];
     const facts = this.predicateFacts[this.table.predicates[row]];
     const subjectIsAxiom = isStructure(this.axioms, subject);
-    const objectIsAxiom = object !== LITERAL_OBJECT && isStructure(this.axioms, object);
+    const objectIsAxiom = object >= 0 && isStructure(this.axioms, object);
     if (subjectIsAxiom || objectIsAxiom) this.axiomStatements++;
     if (subjectIsAxiom && facts.isMembers && isAllDisjointClasses(this.axioms, subject)) {
       if (this.roles.readsAllDisjointClasses) this.readDisjointMembers(row);
@@ -134,9 +134,9 @@ class StatementReader {
 
     const { mapping, collector } = facts;
     if (mapping !== undefined && collector !== undefined) {
-      if (object === LITERAL_OBJECT) {
+      if (object < 0) {
         this.skippedRoleStatements++;
-        const statement = this.table.statements[row];
+        const statement = this.table.statement(row);
         this.problems.push({
           ...statement.position,
           message: `<${facts.iri}> (${mapping.role}) has a literal object "${(statement.object as Literal).value}", so it adds no edge`,
@@ -153,17 +153,17 @@ class StatementReader {
       }
     }
     if (subjectIsAxiom) return;
-    if (facts.isType && object !== LITERAL_OBJECT && (this.termMarks[object] & CLASS_TYPE_TERM) !== 0) {
+    if (facts.isType && object >= 0 && (this.termMarks[object] & CLASS_TYPE_TERM) !== 0) {
       this.declaredClasses.push(terms.makeNode(subject));
     }
-    if (facts.isDeprecated && this.roles.readsDeprecated && isTrueLiteral(this.table.statements[row].object)) {
+    if (facts.isDeprecated && this.roles.readsDeprecated && isTrueLiteral(this.table.literal(row))) {
       this.deprecated.push(terms.makeNode(subject));
     }
-    if (facts.isLabel && object === LITERAL_OBJECT) {
-      this.offerLabel(subject, facts.iri, this.table.statements[row].object as Literal);
+    if (facts.isLabel && object < 0) {
+      this.offerLabel(subject, facts.iri, this.table.literal(row) as Literal);
     }
     if ((this.termMarks[subject] & ROOT_TERM) !== 0) terms.makeNode(subject);
-    if (object !== LITERAL_OBJECT && !objectIsAxiom && (this.termMarks[object] & ROOT_TERM) !== 0) terms.makeNode(object);
+    if (object >= 0 && !objectIsAxiom && (this.termMarks[object] & ROOT_TERM) !== 0) terms.makeNode(object);
   }
 
   /** Adds an edge; a symmetric role gets its mirror too, with the same statement. */
@@ -174,14 +174,14 @@ class StatementReader {
 
   /** owl:AllDisjointClasses owl:members (...): every pair of distinct members is disjoint-with. */
   private readDisjointMembers(row: number): void {
-    const { statements, objects, terms } = this.table;
-    const statement = statements[row];
-    const walk = objects[row] !== LITERAL_OBJECT
+    const { objects, terms } = this.table;
+    const statement = this.table.statement(row);
+    const walk = objects[row] >= 0
       ? walkList(objects[row], this.axioms, this.table, row)
       : { problem: 'owl:members has a literal object', statement: row };
     if ('problem' in walk) {
       this.brokenLists++;
-      const where = statements[walk.statement].position;
+      const where = this.table.statement(walk.statement).position;
       this.problems.push({
         ...where,
         message: `the owl:members list of owl:AllDisjointClasses ${statement.subject} cannot be read: ${walk.problem}; its disjointness is skipped`,
@@ -252,7 +252,7 @@ function firstStatements(table: StatementTable): Int32Array {
   for (let row = 0; row < subjects.length; row++) {
     const subjectId = terms.nodeOf(subjects[row]);
     if (subjectId >= 0 && asSubject[subjectId] < 0) asSubject[subjectId] = row;
-    if (objects[row] !== LITERAL_OBJECT) {
+    if (objects[row] >= 0) {
       const objectId = terms.nodeOf(objects[row]);
       if (objectId >= 0 && asObject[objectId] < 0) asObject[objectId] = row;
     }
@@ -284,7 +284,7 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
   const reader = new StatementReader(table, axioms, roles, scope);
   reader.readAll();
 
-  const { terms, statements } = table;
+  const { terms } = table;
   const nodeCount = terms.size;
   const adjacency = Object.fromEntries(
     ROLES.map((role) => [role, buildAdjacency(nodeCount, reader.collectors[role])]),
@@ -292,7 +292,7 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
   const edges = emptyRoleCounts();
   for (const role of ROLES) edges[role] = distinctEdgeCount(role, adjacency[role]);
   const stats: GraphStats = {
-    statements: statements.length,
+    statements: sources.reduce((sum, source) => sum + (source.statementCount ?? source.statements.length), 0),
     roleStatements: reader.roleStatements,
     edges,
     axiomStatements: reader.axiomStatements,
@@ -306,7 +306,7 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
     flags: nodeFlags({ reader, terms, adjacency, axioms, scope }),
     firstStatements: firstStatements(table),
     labels: nodeLabels(reader, terms),
-    statements,
+    statementAt: table.statement,
     prefixes: new PrefixTable(sources),
     stats,
     problems: reader.problems,

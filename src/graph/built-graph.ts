@@ -29,8 +29,8 @@ export interface GraphParts {
   firstStatements: Int32Array;
   /** Label per node id, undefined when none was stated. */
   labels: readonly (string | undefined)[];
-  /** All statements of all sources, in source order; evidence indices point here. */
-  statements: readonly Statement[];
+  /** The statement of a row of the run's statement table; evidence indices are such rows. */
+  statementAt: (row: number) => Statement;
   prefixes: PrefixTable;
   stats: GraphStats;
   problems: InputError[];
@@ -84,7 +84,7 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
     if (edge < 0) return [];
     const found: Statement[] = [];
     for (let index = adjacency.evidenceOffsets[edge]; index < adjacency.evidenceOffsets[edge + 1]; index++) {
-      found.push(this.parts.statements[adjacency.evidence[index]]);
+      found.push(this.parts.statementAt(adjacency.evidence[index]));
     }
     return found;
   }
@@ -98,7 +98,7 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
   firstStatement(id: number): Statement | undefined {
     if (!this.validId(id)) return undefined;
     const index = this.parts.firstStatements[id];
-    return index < 0 ? undefined : this.parts.statements[index];
+    return index < 0 ? undefined : this.parts.statementAt(index);
   }
 
   /** A prefixed name when a declared prefix fits, else `<IRI>` or `_:label`. */

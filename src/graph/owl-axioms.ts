@@ -15,7 +15,7 @@ import {
   RDF_REST,
   RDF_TYPE,
 } from '../roles/vocabulary.js';
-import { LITERAL_OBJECT, type StatementTable } from './statement-table.js';
+import type { StatementTable } from './statement-table.js';
 
 /** owl:onProperty — the property a restriction is on (OWL 2 Mapping to RDF Graphs; from memory). */
 const OWL_ON_PROPERTY = `${OWL_NAMESPACE}onProperty`;
@@ -27,7 +27,7 @@ const AXIOM_TYPES: ReadonlySet<string> = new Set([OWL_ALL_DISJOINT_CLASSES, OWL_
  * Predicates whose blank-node subject is an axiom structure. Only blank subjects count: an OWL 1
  * style `:C owl:unionOf (...)` on a named class keeps the named class in the hierarchy.
  */
-const STRUCTURE_PREDICATES: ReadonlySet<string> = new Set([
+export const STRUCTURE_PREDICATES: ReadonlySet<string> = new Set([
   RDF_FIRST,
   RDF_REST,
   OWL_UNION_OF,
@@ -106,13 +106,15 @@ export function indexAxioms(table: StatementTable): AxiomIndex {
   for (let termNumber = 0; termNumber < blankTerms.length; termNumber++) {
     if (isBlank(terms.text(termNumber))) blankTerms[termNumber] = 1;
   }
+  // A blank node whose only statements were not kept is still a subject of the linted files.
+  for (const subject of table.unkeptBlankSubjects) index.termFlags[subject] |= BLANK_SUBJECT;
   for (let row = 0; row < subjects.length; row++) {
     const subject = subjects[row];
     const object = objects[row];
     const kind = kinds[predicates[row]];
     const blank = blankTerms[subject] === 1;
     if (blank) index.termFlags[subject] |= BLANK_SUBJECT;
-    const allDisjoint = kind.isType && object !== LITERAL_OBJECT ? axiomTypes.get(object) : undefined;
+    const allDisjoint = kind.isType && object >= 0 ? axiomTypes.get(object) : undefined;
     if (allDisjoint !== undefined) {
       index.termFlags[subject] |= STRUCTURE;
       if (allDisjoint) index.termFlags[subject] |= ALL_DISJOINT_CLASSES;
@@ -154,10 +156,10 @@ export function walkList(head: number, index: AxiomIndex, table: StatementTable,
       return { problem: `list cell ${cellText} has more than one rdf:first or rdf:rest`, statement: firsts[1] ?? rests[1] };
     }
     const member = objects[firsts[0]];
-    if (member === LITERAL_OBJECT) return { problem: `list cell ${cellText} has a literal member`, statement: firsts[0] };
+    if (member < 0) return { problem: `list cell ${cellText} has a literal member`, statement: firsts[0] };
     members.push(member);
     const rest = objects[rests[0]];
-    if (rest === LITERAL_OBJECT) return { problem: `list cell ${cellText} has a literal rdf:rest`, statement: rests[0] };
+    if (rest < 0) return { problem: `list cell ${cellText} has a literal rdf:rest`, statement: rests[0] };
     cell = rest;
     cellStatement = rests[0];
   }

@@ -1,45 +1,72 @@
 // The statements of a run as integer columns: term numbers of subject and object, and a predicate number.
-import type { LoadedSource, Statement } from '../load/statement.js';
+import type { Literal, LoadedSource, Statement } from '../load/statement.js';
+import { StatementStore } from '../load/statement-store.js';
 import { TermInterner } from './interner.js';
 
-/** The object column's value for a literal object. */
-export const LITERAL_OBJECT = -1;
-
 /**
- * All statements of all sources in source order, with row i's subject and object as term numbers
- * of `terms` (a literal object as LITERAL_OBJECT) and its predicate as an index into `predicateIris`.
+ * All kept statements of all sources in source order, with row i's subject and object as term
+ * numbers of `terms` (a literal object as a negative number) and its predicate as an index into
+ * `predicateIris`. Statements and literals are made from the rows only when asked for.
  */
 export interface StatementTable {
-  statements: readonly Statement[];
+  rowCount: number;
+  /** The statement of a row (the same object each time). */
+  statement(row: number): Statement;
+  /** The literal object of a row, or undefined when its object is a term. */
+  literal(row: number): Literal | undefined;
   terms: TermInterner;
   subjects: Int32Array;
   objects: Int32Array;
   predicates: Int32Array;
   /** Each distinct predicate IRI once, in first-seen order. */
   predicateIris: readonly string[];
+  /** Term numbers of blank nodes that are subjects of statements the loader did not keep. */
+  unkeptBlankSubjects: ReadonlySet<number>;
 }
 
-/** Numbers the terms and predicates of every statement, one map lookup per term occurrence. */
+/** Whether an object column value is a literal rather than a term number. */
+export function isLiteralObject(object: number): boolean {
+  return object < 0;
+}
+
+/**
+ * The table of the sources' statements. Sources read by one `loadSources` call already sit in its
+ * store, in order, and are used as they are; any others are numbered here, one lookup per term.
+ */
 export function tabulateStatements(sources: readonly LoadedSource[]): StatementTable {
-  const statements: Statement[] = [];
-  for (const source of sources) for (const statement of source.statements) statements.push(statement);
-  const terms = new TermInterner();
-  const subjects = new Int32Array(statements.length);
-  const objects = new Int32Array(statements.length);
-  const predicates = new Int32Array(statements.length);
-  const predicateNumbers = new Map<string, number>();
-  const predicateIris: string[] = [];
-  for (let row = 0; row < statements.length; row++) {
-    const { subject, predicate, object } = statements[row];
-    subjects[row] = terms.number(subject);
-    objects[row] = typeof object === 'string' ? terms.number(object) : LITERAL_OBJECT;
-    let predicateNumber = predicateNumbers.get(predicate);
-    if (predicateNumber === undefined) {
-      predicateNumber = predicateIris.length;
-      predicateNumbers.set(predicate, predicateNumber);
-      predicateIris.push(predicate);
-    }
-    predicates[row] = predicateNumber;
+  const store = sharedStore(sources) ?? copiedStore(sources);
+  const terms = new TermInterner(store);
+  return {
+    rowCount: store.size,
+    statement: (row) => store.statement(row),
+    literal: (row) => store.literalOf(row),
+    terms,
+    subjects: store.subjects,
+    objects: store.objects,
+    predicates: store.predicates,
+    predicateIris: store.predicateIris,
+    unkeptBlankSubjects: store.unkeptBlankSubjects,
+  };
+}
+
+/** The store of the sources when they fill it exactly, in order; otherwise undefined. */
+function sharedStore(sources: readonly LoadedSource[]): StatementStore | undefined {
+  const store = sources[0]?.rows?.store;
+  if (store === undefined) return undefined;
+  let next = 0;
+  for (const source of sources) {
+    if (source.rows === undefined || source.rows.store !== store || source.rows.start !== next) return undefined;
+    next = source.rows.end;
   }
-  return { statements, terms, subjects, objects, predicates, predicateIris };
+  return next === store.size ? store : undefined;
+}
+
+/** A new store holding the statements of the sources, in order; each row gives back its own statement object. */
+function copiedStore(sources: readonly LoadedSource[]): StatementStore {
+  const store = new StatementStore();
+  for (const source of sources) {
+    store.file(source.file);
+    for (const statement of source.statements) store.addStatement(statement, true);
+  }
+  return store;
 }

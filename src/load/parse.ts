@@ -16,6 +16,10 @@ export interface ParseOptions {
   baseIri?: string;
   /** The folder a relative file name starts from; default the process's working folder. */
   cwd?: string;
+  /** The blank node label prefix, when the caller has already worked it out for the file. */
+  blankNodePrefix?: string;
+  /** Whether the text is one line of a larger source whose other lines are read anyway (changes error messages). */
+  singleLine?: boolean;
 }
 
 /** The file name the loader gives standard input. */
@@ -29,7 +33,7 @@ export function parseSource(text: string, file: string, format: N3Format, option
   const source: LoadedSource = { file, format, statements: [], errors: [], allowComments: [], prefixes: {} };
   const input = text.startsWith('\ufeff') ? text.slice(1) : text;
   const cwd = options.cwd ?? process.cwd();
-  const labelPrefix = blankNodeLabelPrefix(file, cwd);
+  const labelPrefix = options.blankNodePrefix ?? blankNodeLabelPrefix(file, cwd);
   const positions = new TermPositions(labelPrefix);
   const pendingQuads: RDF.Quad[] = [];
   let lastCodeLine = 0;
@@ -57,7 +61,7 @@ export function parseSource(text: string, file: string, format: N3Format, option
     },
     {
       onQuad: (error, quad) => {
-        if (error) source.errors.push(toInputError({ file, format, text: input, error }));
+        if (error) source.errors.push(toInputError({ file, format, text: input, error, singleLine: options.singleLine }));
         else if (quad) pendingQuads.push(quad);
       },
       onPrefix: (prefix, namespace) => {

@@ -1,6 +1,7 @@
-// Turning the bytes of a source into text: gzip recognised by its magic bytes, UTF-8 checked, BOM dropped.
-import { gunzip } from 'node:zlib';
+// Turning the bytes of a source into text: UTF-8 checked, BOM dropped. The loader inflates gzip while
+// it streams (byte-source.ts); `toSourceText` is for bytes already in hand (a git blob, an editor's file).
 import { promisify } from 'node:util';
+import { gunzip } from 'node:zlib';
 import type { InputError } from './statement.js';
 
 const gunzipAsync = promisify(gunzip);
@@ -13,24 +14,26 @@ export function isGzip(bytes: Uint8Array): boolean {
   return bytes.length >= 2 && bytes[0] === 0x1f && bytes[1] === 0x8b;
 }
 
-/** Decompresses gzip bytes when they are gzip, then decodes UTF-8 (dropping a BOM). */
+/** Decompresses whole gzip bytes when they are gzip, then decodes them as `decodeText` does. */
 export async function toSourceText(bytes: Uint8Array, file: string): Promise<SourceText> {
-  let plain = bytes;
-  if (isGzip(bytes)) {
-    try {
-      plain = await gunzipAsync(bytes);
-    } catch (error) {
-      return {
-        error: {
-          file,
-          line: 0,
-          column: 0,
-          message: `${file} starts as gzip but cannot be decompressed (${(error as Error).message}); it was not read.`,
-          hint: 'the gzip stream is truncated or corrupt: check it with gzip -t, or compress the file again',
-        },
-      };
-    }
+  if (!isGzip(bytes)) return decodeText(bytes, file);
+  try {
+    return decodeText(await gunzipAsync(bytes), file);
+  } catch (error) {
+    return {
+      error: {
+        file,
+        line: 0,
+        column: 0,
+        message: `${file} starts as gzip but cannot be decompressed (${(error as Error).message}); it was not read.`,
+        hint: 'the gzip stream is truncated or corrupt: check it with gzip -t, or compress the file again',
+      },
+    };
   }
+}
+
+/** Decodes UTF-8 bytes (dropping a BOM), or the error naming where the first invalid sequence starts. */
+export function decodeText(plain: Uint8Array, file: string): SourceText {
   try {
     // TextDecoder drops a leading UTF-8 BOM unless told otherwise.
     return { text: new TextDecoder('utf-8', { fatal: true }).decode(plain) };
@@ -49,7 +52,7 @@ export async function toSourceText(bytes: Uint8Array, file: string): Promise<Sou
 }
 
 /** The 1-based line and UTF-16 column where the first invalid UTF-8 sequence starts. */
-function firstInvalidUtf8(bytes: Uint8Array): { line: number; column: number } {
+export function firstInvalidUtf8(bytes: Uint8Array): { line: number; column: number } {
   // A prefix that decodes (allowing a cut-off last character) stays valid when shortened,
   // so the longest valid prefix can be found by bisection.
   let valid = 0;

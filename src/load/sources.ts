@@ -1,13 +1,19 @@
 // Reading the sources of a run: files, folders and stdin, plain or gzip, each parsed into a LoadedSource.
-import { readFile, stat } from 'node:fs/promises';
+import { createReadStream, type ReadStream } from 'node:fs';
+import { once } from 'node:events';
+import { stat } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { InputError, LoadResult, RdfFormat } from './statement.js';
 import { detectFormat, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
-import { STDIN_FILE } from './parse.js';
+import { blankNodeLabelPrefix, STDIN_FILE } from './parse.js';
 import { parseAnySource, textChunks } from './parse-any.js';
 import type { ContextMap } from './jsonld-contexts.js';
-import { toSourceText } from './source-text.js';
+import { decodeText } from './source-text.js';
+import { sourceChunks, type LoadProgress, type ReadFailure } from './byte-source.js';
+import { LineReader } from './line-reader.js';
+import { StatementStore } from './statement-store.js';
+import { storeSource } from './stored-source.js';
 import { joinShown, listRdfFiles } from './walk.js';
 
 /** Options of `loadSources`. */
@@ -16,19 +22,26 @@ export interface LoadOptions {
   cwd?: string;
   /** What `-` reads; default the process's standard input. */
   stdin?: NodeJS.ReadableStream;
+  /** Predicates whose statements are kept; the others are counted, not stored. Default: keep all. */
+  keepPredicates?: ReadonlySet<string>;
+  /** Whether N-Triples and N-Quads take the line-by-line fast path (default true); false parses them whole with n3. */
+  fastLines?: boolean;
+  /** Called as a source is read, at least once per chunk, with how far it has got. */
+  onProgress?: (progress: LoadProgress) => void;
+  /** The store the statements go to; default a new one for this call. */
+  store?: StatementStore;
   /** The IRI relative IRIs resolve against (`--base`); default each file's `file://` URL. */
   baseIri?: string;
   /** JSON-LD context IRI → absolute path of a local copy (`contexts:` in isapart.yaml). */
   contexts?: ContextMap;
 }
 
-/** What parsing needs besides the text: the folder of the run, the base IRI and the local contexts. */
-type ParseSettings = Pick<LoadOptions, 'baseIri' | 'contexts'> & { cwd: string };
-
 /** A LoadResult that also names what inside given folders was left out of the run. */
 export interface LoadResultWithSkipped extends LoadResult {
   /** Files left out for their extension, and node_modules and dot-folders as `folder/.name/`, named as the user would. */
   skippedFiles: string[];
+  /** The store holding every kept statement of the sources (absent where sources were parsed one by one, as the language server does). */
+  store?: StatementStore;
 }
 
 /** One file to read: the name shown in positions, and where it is. */
@@ -40,27 +53,38 @@ interface FileToRead {
 const EXTENSION_LIST = RDF_EXTENSIONS.join(', ');
 const SYNTAX_LIST = 'Turtle, TriG, N-Triples, N-Quads, RDF/XML or JSON-LD';
 
+/** Bytes read from a file at a time. */
+const CHUNK_BYTES = 1 << 20;
+
 /**
  * Reads every path in order: a file, a folder (its RDF files, recursively and sorted) or `-` for
  * standard input. A source that cannot be read becomes an error; the others are still read.
  */
 export async function loadSources(paths: string[], options: LoadOptions = {}): Promise<LoadResultWithSkipped> {
   const cwd = options.cwd ?? process.cwd();
-  const settings: ParseSettings = { cwd, baseIri: options.baseIri, contexts: options.contexts };
-  const result: LoadResultWithSkipped = { sources: [], errors: [], skippedFiles: [] };
+  const store = options.store ?? new StatementStore();
+  const result: LoadResultWithSkipped = { sources: [], errors: [], skippedFiles: [], store };
+  const reading: RunReading = {
+    store,
+    keep: options.keepPredicates,
+    fastLines: options.fastLines ?? true,
+    onProgress: options.onProgress,
+    baseIri: options.baseIri,
+    contexts: options.contexts,
+  };
   const seen = new Set<string>();
   for (const path of paths) {
     if (path === '-') {
       if (seen.has(STDIN_FILE)) continue;
       seen.add(STDIN_FILE);
-      await loadStdin({ stdin: options.stdin ?? process.stdin, settings }, result);
+      await loadStdin({ stdin: options.stdin ?? process.stdin, cwd }, result, reading);
       continue;
     }
     for (const file of await filesOfPath(path, cwd, result)) {
       // A file named twice, or inside a folder also given, is read once.
       if (seen.has(file.absolutePath)) continue;
       seen.add(file.absolutePath);
-      await loadFile({ ...file, settings }, result);
+      await loadFile({ ...file, cwd }, result, reading);
     }
   }
   return result;
@@ -95,11 +119,14 @@ async function filesOfPath(path: string, cwd: string, result: LoadResultWithSkip
   }));
 }
 
-/** Reads, decodes and parses one file into the result. */
-async function loadFile(file: FileToRead & { settings: ParseSettings }, result: LoadResultWithSkipped): Promise<void> {
-  let bytes: Uint8Array;
+/** Opens one file as a stream and reads it into the result. */
+async function loadFile(file: FileToRead & { cwd: string }, result: LoadResultWithSkipped, reading: RunReading): Promise<void> {
+  let size: number;
+  let stream: ReadStream;
   try {
-    bytes = await readFile(file.absolutePath);
+    size = (await stat(file.absolutePath)).size;
+    stream = createReadStream(file.absolutePath, { highWaterMark: CHUNK_BYTES });
+    await once(stream, 'open');
   } catch (error) {
     result.errors.push({
       file: file.shownAs,
@@ -110,47 +137,163 @@ async function loadFile(file: FileToRead & { settings: ParseSettings }, result: 
     });
     return;
   }
-  await parseBytes({ bytes, file: file.shownAs, baseIri: file.settings.baseIri ?? pathToFileURL(file.absolutePath).href, settings: file.settings }, result);
+  await readSource(
+    { input: stream, file: file.shownAs, baseIri: reading.baseIri ?? pathToFileURL(file.absolutePath).href, cwd: file.cwd, totalBytes: size },
+    result,
+    reading,
+  );
 }
 
-/** Reads standard input to its end and parses it as the source `<stdin>`. */
-async function loadStdin(input: { stdin: NodeJS.ReadableStream; settings: ParseSettings }, result: LoadResultWithSkipped): Promise<void> {
-  const { stdin, settings } = input;
-  const chunks: Buffer[] = [];
-  try {
-    for await (const chunk of stdin) chunks.push(typeof chunk === 'string' ? Buffer.from(chunk) : chunk);
-  } catch (error) {
-    result.errors.push({
-      file: STDIN_FILE,
-      line: 0,
-      column: 0,
-      message: `Standard input could not be read (${(error as Error).message}); what came before the failure was not used.`,
-      hint: 'check the command that feeds isapart through the pipe',
-    });
+/** Reads standard input to its end as the source `<stdin>`. */
+async function loadStdin(input: { stdin: NodeJS.ReadableStream; cwd: string }, result: LoadResultWithSkipped, reading: RunReading): Promise<void> {
+  await readSource({ input: input.stdin, file: STDIN_FILE, baseIri: reading.baseIri ?? 'file:///dev/stdin', cwd: input.cwd, totalBytes: undefined }, result, reading);
+}
+
+/** What every source of a run shares while it is read. */
+interface RunReading {
+  store: StatementStore;
+  keep: ReadonlySet<string> | undefined;
+  fastLines: boolean;
+  onProgress: ((progress: LoadProgress) => void) | undefined;
+  baseIri: string | undefined;
+  contexts: ContextMap | undefined;
+}
+
+/** One source to read as a stream. */
+interface StreamedSource {
+  input: NodeJS.ReadableStream;
+  file: string;
+  baseIri: string;
+  cwd: string;
+  totalBytes: number | undefined;
+}
+
+/**
+ * Streams a source: works out its syntax from its name or its first chunks, then reads N-Triples and
+ * N-Quads line by line as the chunks come. Turtle, TriG, RDF/XML and JSON-LD are gathered and
+ * parsed as one text: the positions of Turtle and TriG statements come from n3's token callbacks on
+ * a whole string, and the whole text is checked as UTF-8 first so that a bad byte has its line.
+ */
+async function readSource(source: StreamedSource, result: LoadResultWithSkipped, reading: RunReading): Promise<void> {
+  const progress: LoadProgress = { file: source.file, bytesRead: 0, totalBytes: source.totalBytes, lines: 0 };
+  const report = (): void => reading.onProgress?.({ ...progress });
+  const streamed = sourceChunks(source.input, (count) => {
+    progress.bytesRead += count;
+  });
+  const chunks = streamed.chunks[Symbol.asyncIterator]();
+  const head: Buffer[] = [];
+  let headBytes = 0;
+  let ended = false;
+  while (headBytes < SNIFF_LENGTH) {
+    const next = await chunks.next();
+    if (next.done === true) {
+      ended = true;
+      break;
+    }
+    head.push(next.value);
+    headBytes += next.value.length;
+  }
+  if (streamed.failure !== undefined) {
+    result.errors.push(failureError(source.file, streamed.failure, streamed.gzip, undefined));
     return;
   }
-  await parseBytes({ bytes: Buffer.concat(chunks), file: STDIN_FILE, baseIri: settings.baseIri ?? 'file:///dev/stdin', settings }, result);
-}
+  const nameForFormat = source.file === STDIN_FILE ? '-' : source.file;
+  const headText = new TextDecoder('utf-8').decode(Buffer.concat(head).subarray(0, SNIFF_LENGTH)).slice(0, SNIFF_LENGTH);
+  const format: RdfFormat | undefined = detectFormat(nameForFormat, headText);
+  if (format === undefined) {
+    // A text whose syntax cannot be told is refused; if it is not UTF-8 at all, that is the clearer message.
+    const decoded = ended ? decodeText(Buffer.concat(head), source.file) : undefined;
+    result.errors.push(decoded !== undefined && 'error' in decoded ? decoded.error : unknownSyntaxError(source.file));
+    return;
+  }
+  const rest = (async function* () {
+    yield* head;
+    if (ended) return;
+    for (let next = await chunks.next(); next.done !== true; next = await chunks.next()) yield next.value;
+  })();
 
-/** Decodes a source's bytes, works out its format and parses it into the result. */
-async function parseBytes(
-  source: { bytes: Uint8Array; file: string; baseIri: string; settings: ParseSettings },
-  result: LoadResultWithSkipped,
-): Promise<void> {
-  const decoded = await toSourceText(source.bytes, source.file);
+  if ((format === 'n-triples' || format === 'n-quads') && reading.fastLines) {
+    const reader = new LineReader({
+      file: source.file,
+      format,
+      store: reading.store,
+      keep: reading.keep,
+      labelPrefix: blankNodeLabelPrefix(source.file, source.cwd),
+      baseIri: source.baseIri,
+      cwd: source.cwd,
+    });
+    for await (const chunk of rest) {
+      reader.push(chunk);
+      progress.lines = reader.lineNumber;
+      report();
+    }
+    const loaded = reader.finish(streamed.failure !== undefined);
+    progress.lines = reader.lineNumber;
+    report();
+    result.sources.push(loaded);
+    // A stream that broke off is an error beside what was read before it, never a silent short read.
+    if (streamed.failure !== undefined) result.errors.push(failureError(source.file, streamed.failure, streamed.gzip, reader.lineNumber));
+    return;
+  }
+
+  const gathered: Buffer[] = [];
+  for await (const chunk of rest) {
+    gathered.push(chunk);
+    progress.lines += countNewlines(chunk);
+    report();
+  }
+  if (streamed.failure !== undefined) {
+    result.errors.push(failureError(source.file, streamed.failure, streamed.gzip, undefined));
+    return;
+  }
+  const decoded = decodeText(Buffer.concat(gathered), source.file);
   if ('error' in decoded) {
     result.errors.push(decoded.error);
     return;
   }
-  const nameForFormat = source.file === STDIN_FILE ? '-' : source.file;
-  const head = decoded.text.slice(0, SNIFF_LENGTH);
-  const format: RdfFormat | undefined = detectFormat(nameForFormat, head);
-  if (format === undefined) {
-    result.errors.push(unknownSyntaxError(source.file));
-    return;
+  const parsed = await parseAnySource(textChunks(decoded.text), source.file, format, {
+    baseIri: source.baseIri,
+    cwd: source.cwd,
+    contexts: reading.contexts,
+  });
+  result.sources.push(storeSource(parsed, reading.store, reading.keep));
+}
+
+/** How many newline bytes a chunk holds. */
+function countNewlines(chunk: Buffer): number {
+  let count = 0;
+  for (let index = chunk.indexOf(10); index >= 0; index = chunk.indexOf(10, index + 1)) count++;
+  return count;
+}
+
+/** The error for a source whose bytes stopped coming: a failed read, or gzip that cannot be inflated. */
+function failureError(file: string, failure: ReadFailure, gzip: boolean, linesRead: number | undefined): InputError {
+  const kept = linesRead === undefined ? 'it was not read' : `its first ${linesRead} lines were read, the rest was not`;
+  if (failure.kind === 'gzip' || gzip) {
+    return {
+      file,
+      line: 0,
+      column: 0,
+      message: `${file} starts as gzip but cannot be decompressed (${failure.message}); ${kept}.`,
+      hint: 'the gzip stream is truncated or corrupt: check it with gzip -t, or compress the file again',
+    };
   }
-  const { cwd, contexts } = source.settings;
-  result.sources.push(await parseAnySource(textChunks(decoded.text), source.file, format, { baseIri: source.baseIri, cwd, contexts }));
+  if (file === STDIN_FILE) {
+    return {
+      file,
+      line: 0,
+      column: 0,
+      message: `Standard input could not be read (${failure.message}); ${linesRead === undefined ? 'what came before the failure was not used' : kept}.`,
+      hint: 'check the command that feeds isapart through the pipe',
+    };
+  }
+  return {
+    file,
+    line: 0,
+    column: 0,
+    message: `${file} cannot be read (${failure.message}); ${kept}.`,
+    hint: 'check that the file exists and that you may read it',
+  };
 }
 
 /** The error for a source whose syntax cannot be told from its name or content. */

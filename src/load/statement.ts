@@ -1,4 +1,5 @@
 // Statements as the loaders give them: RDF terms as plain strings, plus where they were stated.
+import type { StatementStore } from './statement-store.js';
 
 /** A literal object: lexical form, datatype IRI, and language tag ('' when none). */
 export interface Literal {
@@ -56,11 +57,25 @@ export type N3Format = 'turtle' | 'trig' | 'n-triples' | 'n-quads';
 /** The RDF syntaxes isapart reads. */
 export type RdfFormat = N3Format | 'rdf-xml' | 'json-ld';
 
+/** Where a source's kept statements are: rows start..end-1 of a run's StatementStore. */
+export interface StoredRows {
+  store: StatementStore;
+  start: number;
+  end: number;
+}
+
 /** Everything read from one source (a file, or stdin as file '<stdin>'). */
 export interface LoadedSource {
   file: string;
   format: RdfFormat;
+  /** The kept statements; for a source read into a store, made from its rows when asked for. */
   statements: Statement[];
+  /** Statements read, kept or not; when absent, `statements.length`. */
+  statementCount?: number;
+  /** Statements read whose predicate plays no part in the graph, so they were counted and not kept. */
+  unkeptStatements?: number;
+  /** The store rows of the kept statements, when the loader read the source into a store. */
+  rows?: StoredRows;
   errors: InputError[];
   /** Problems that leave the source readable (a JSON-LD key that states nothing); they do not change the exit code. */
   warnings?: InputError[];

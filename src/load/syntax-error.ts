@@ -8,6 +8,8 @@ export interface SyntaxErrorSite {
   format: N3Format;
   text: string;
   error: Error & { context?: N3ErrorContext };
+  /** Whether the text is one line of a larger source whose other lines are still read. */
+  singleLine?: boolean;
 }
 
 interface ErrorKind {
@@ -143,7 +145,7 @@ export function toInputError(site: SyntaxErrorSite): InputError {
     file: site.file,
     line,
     column,
-    message: `${formatName(format)} syntax error: ${what}, expected ${expected}. The rest of the file was not read.`,
+    message: `${formatName(format)} syntax error: ${what}, expected ${expected}. ${site.singleLine === true ? 'The line was skipped; the lines after it were read.' : 'The rest of the file was not read.'}`,
     hint,
   };
 }
