@@ -3,6 +3,7 @@
 import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
 import { pathToFileURL } from 'node:url';
+import { randomSource } from '../random-source.js';
 
 /** What to generate. Every count derives from `classes` and `seed`, so the same spec gives the same bytes. */
 export interface HierarchySpec {
@@ -41,18 +42,6 @@ const PART_OF = 0.03;
 const INSTANCE = 0.5;
 /** Statements per text chunk handed to the writer. */
 const CHUNK_STATEMENTS = 20_000;
-
-/** mulberry32: a small, fast, deterministic 32-bit generator (common practice for reproducible benchmarks). */
-function randomSource(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** One generated statement: subject, predicate and an object that is an IRI or a ready-made N-Triples literal. */
 interface GeneratedStatement {

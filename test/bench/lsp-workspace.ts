@@ -2,6 +2,7 @@
 // Invented data in the Northvale Rail namespace: it stands in for a modeller's project, it is not a fact of the trade.
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { randomSource } from '../random-source.js';
 
 /** The namespace of the generated classes and assets. */
 export const WORKSPACE_NAMESPACE = 'https://data.northvale-rail.example/bench-lsp/';
@@ -10,18 +11,6 @@ export const WORKSPACE_NAMESPACE = 'https://data.northvale-rail.example/bench-ls
 export interface GeneratedWorkspace {
   files: string[];
   statements: number;
-}
-
-/** mulberry32: a small deterministic 32-bit generator (common practice for reproducible benchmarks). */
-function randomSource(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let value = state;
-    value = Math.imul(value ^ (value >>> 15), value | 1);
-    value ^= value + Math.imul(value ^ (value >>> 7), value | 61);
-    return ((value ^ (value >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const PREFIXES = `@prefix rdf: <http://www.w3.org/1999/02/22-rdf-syntax-ns#> .

@@ -7,21 +7,10 @@ import type { TextDocument } from 'vscode-languageserver-textdocument';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { HeapReport } from '../../src/lsp/server.js';
 import { startServer, uriOf, type ServerSession } from './lsp-client.js';
+import { randomSource } from '../random-source.js';
 
 const repositoryRoot = path.resolve(fileURLToPath(import.meta.url), '../../..');
 const EDITS = 1000;
-
-/** A small deterministic generator (mulberry32), so a failure can be replayed. */
-function randomSource(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let value = state;
-    value = Math.imul(value ^ (value >>> 15), value | 1);
-    value ^= value + Math.imul(value ^ (value >>> 7), value | 61);
-    return ((value ^ (value >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 // Pieces a typist or a bad paste might insert: Turtle fragments, stray punctuation, astral and control characters.
 const PIECES = [
