@@ -97,16 +97,15 @@ export class GraphTerms {
     return predicates.length === 1 ? predicates[0] : `(${predicates.join('|')})`;
   }
 
-  /** Whether a term is read as an OWL axiom structure rather than a node. */
+  /** Whether a term is read as an OWL axiom structure rather than a node: typed as an axiom, or a blank subject of list or class-expression predicates. */
   structure(term: string): string {
-    const type = this.names.fresh();
     const predicate = this.names.fresh();
     const value = this.names.fresh();
     const types = AXIOM_TYPES.map((iri) => iriRef(iri, 'axiom type')).join(', ');
     const predicates = STRUCTURE_PREDICATES.map((iri) => iriRef(iri, 'structure predicate')).join(', ');
     return (
-      `(EXISTS { ${term} ${iriRef(RDF_TYPE, 'rdf:type')} ${type} . FILTER(${type} IN (${types})) }` +
-      ` || (isBlank(${term}) && EXISTS { ${term} ${predicate} ${value} . FILTER(${predicate} IN (${predicates})) }))`
+      `EXISTS { ${term} ${predicate} ${value} . ` +
+      `FILTER((sameTerm(${predicate}, ${iriRef(RDF_TYPE, 'rdf:type')}) && ${value} IN (${types})) || (isBlank(${term}) && ${predicate} IN (${predicates}))) }`
     );
   }
 
