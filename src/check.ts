@@ -17,11 +17,12 @@ import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources } from './load/sources.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { buildRoleMap } from './roles/role-map.js';
+import { endpointRequest, loadFromEndpoint, pushDownRules, type EndpointOptions } from './check-endpoint.js';
 import { toolVersion } from './version.js';
 
 /** What one run is asked to do; the command line parses into exactly this. */
-export interface CheckOptions {
-  /** Files or folders; '-' for stdin. */
+export interface CheckOptions extends EndpointOptions {
+  /** Files or folders; '-' for stdin (not read when `endpoint` is given). */
   paths: string[];
   cwd?: string;
   stdin?: NodeJS.ReadableStream;
@@ -64,7 +65,9 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
-  const loaded = await loadSources(options.paths, { cwd, stdin: options.stdin });
+  const endpoint = options.endpoint === undefined ? undefined : endpointRequest({ ...options, endpoint: options.endpoint }, config, roleMap);
+  const pushDown = endpoint !== undefined && options.pushDown === true;
+  const loaded = endpoint === undefined ? await loadSources(options.paths, { cwd, stdin: options.stdin }) : await loadFromEndpoint(endpoint, pushDown);
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
@@ -79,11 +82,14 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     ...(graph.problems ?? []),
     ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
     ...nothingReadWarnings(loaded.sources),
-    ...unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] }),
+    // Push-down builds no graph here, so it cannot tell which settings match nothing.
+    ...(pushDown ? [] : unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] })),
   ];
   const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
   const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
-  const { findings: raw, failures } = runRules(graph, active);
+  const pushed = pushDown ? await pushDownRules(endpoint, config, active) : undefined;
+  if (pushed !== undefined) inputErrors.push(...pushed.errors);
+  const { findings: raw, failures } = pushed ?? runRules(graph, active);
 
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);

@@ -21,6 +21,21 @@ export interface CheckCommandOptions {
   failOn: FailOn;
   color: boolean;
   quiet?: boolean;
+  endpoint?: string;
+  graph?: string;
+  pushDown?: boolean;
+}
+
+/** Why the endpoint options cannot be used together with the paths given, or undefined when they can. */
+function endpointUsageProblem(paths: string[], options: CheckCommandOptions): string | undefined {
+  if (options.endpoint === undefined) {
+    if (options.pushDown === true) return '--push-down runs the rules on a SPARQL endpoint: give it with --endpoint URL';
+    if (options.graph !== undefined) return '--graph names a graph of a SPARQL endpoint: give the endpoint with --endpoint URL';
+    return undefined;
+  }
+  // Commander fills in '.' when no path is given.
+  if (paths.length !== 1 || paths[0] !== '.') return `--endpoint reads from the endpoint instead of files; leave out the paths (${paths.join(' ')}), or lint them in a separate run`;
+  return undefined;
 }
 
 const FORMATTERS = { text: toText, json: toJson, sarif: toSarif } as const;
@@ -67,6 +82,11 @@ export async function runCheckCommand(
     terminal.err(`isapart: ${rules.error}\n`);
     return 2;
   }
+  const endpointProblem = endpointUsageProblem(paths, options);
+  if (endpointProblem !== undefined) {
+    terminal.err(`isapart: ${endpointProblem}\n`);
+    return 2;
+  }
   const outputFile = options.output === undefined ? undefined : path.resolve(terminal.cwd, options.output);
   // Checked before linting, so a long run is not wasted on a report that cannot be written.
   const outputProblem = outputFile === undefined ? undefined : outputPathProblem(outputFile);
@@ -85,6 +105,10 @@ export async function runCheckCommand(
     ruleLevels: rules.levels,
     color: colourAllowed(options, terminal),
     commandLine,
+    endpoint: options.endpoint,
+    graph: options.graph,
+    pushDown: options.pushDown,
+    env: terminal.env,
   });
   const threshold: Level = options.failOn === 'never' ? 'error' : options.failOn;
   const quietText = options.quiet === true && options.format === 'text';
