@@ -95,7 +95,11 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
   // An allow for a rule that is switched off has nothing to suppress, and is not worth a note either.
   const unusedShown = unused.filter((finding) => (config.rules[finding.focus] ?? '') !== 'off');
-  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unusedShown.map((f) => ({ ...f, level: unusedLevel }))];
+  // An endpoint that could not be read, or a rule that failed there, leaves allows unused for no fault of theirs.
+  const endpointFailed = endpoint !== undefined && (loaded.errors.length > 0 || (pushed?.errors.length ?? 0) > 0);
+  const failedRules = new Set(failures.map((failure) => failure.ruleId));
+  const unusedKept = endpointFailed ? [] : unusedShown.filter((finding) => !failedRules.has(finding.focus));
+  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unusedKept.map((f) => ({ ...f, level: unusedLevel }))];
 
   const context: ReportContext = {
     toolName: 'isapart',

@@ -75,5 +75,6 @@ export function readEndpoint(context: YamlReadContext, entry: MappingEntry, conf
     }
   }
   const defined = Object.fromEntries(Object.entries(settings).filter(([, value]) => value !== undefined));
-  config.endpoint = defined as Partial<EndpointSettings>;
+  // An empty section changes nothing, so it leaves the config as it was.
+  if (Object.keys(defined).length > 0) config.endpoint = defined as Partial<EndpointSettings>;
 }

@@ -45,6 +45,14 @@ const STARTER_LINES = [
   '# with a reason for the next reader. In a Turtle file, `# isapart-allow RULE-ID: reason` does the same.',
   '# Example: allow: [{ rule: kind-and-part, focus: https://data.northvale-rail.example/def/Pantograph, reason: "the pantograph class also names the fitted assembly" }]',
   'allow: []',
+  '',
+  '# endpoint: how `isapart check --endpoint URL` talks to a SPARQL 1.1 endpoint: page-size (rows per',
+  '# request), timeout and retry-delay (seconds), retries (after a 5xx answer or a reset connection),',
+  '# post (query: the query as the POST body; form: as a form field, which Virtuoso 7.2 needs), and',
+  '# authorization-env: the NAME of an environment variable holding the Authorization header value',
+  '# (the credentials themselves never go in this file).',
+  '# Example: endpoint: { page-size: 10000, timeout: 120, authorization-env: NORTHVALE_SPARQL_AUTH }',
+  'endpoint: {}',
 ];
 
 /** The text of a commented starter isapart.yaml; it parses with no errors. */
