@@ -30,6 +30,12 @@ export interface CycleVariables {
 export interface PushDownVariables {
   nodes: Variable[];
   cycles: CycleVariables[];
+  /**
+   * When the focus is one of an unordered pair, which of the pair ends up the focus is known only
+   * after sorting, so the query returns an in-scope flag per variable of the pair (variable → flag
+   * variable) instead of filtering; empty otherwise.
+   */
+  inScope: Map<Variable, Variable>;
 }
 
 const PLACEHOLDER = /\{([A-Za-z_][A-Za-z0-9_]*)\}/g;
@@ -67,7 +73,12 @@ export function pushDownVariables(rule: RuleDefinition): PushDownVariables {
   const lists = new Set(cycles.map((cycle) => cycle.members));
   const reported = [rule.report.focus, ...rule.report.nodes, ...[...rule.report.message.matchAll(PLACEHOLDER)].map((found) => `?${found[1]}`)];
   const nodes = [...new Set(reported)].filter((variable) => !lists.has(variable));
-  return { nodes, cycles };
+  const inScope = new Map<Variable, Variable>();
+  for (const pair of rule.report.unordered) {
+    if (!pair.includes(rule.report.focus)) continue;
+    for (const variable of pair) if (!inScope.has(variable)) inScope.set(variable, unique(`?_in_scope_${variable.slice(1)}`));
+  }
+  return { nodes, cycles, inScope };
 }
 
 /** Node variables bound by the positive entries (paths and `is`) of one conjunction. */
@@ -223,6 +234,7 @@ export function compileRuleToSparql(rule: RuleDefinition, setting: PushDownSetti
   const variables = pushDownVariables(rule);
   const taken = ruleVariables(rule);
   for (const cycle of variables.cycles) taken.add(cycle.next).add(cycle.inScope);
+  for (const flag of variables.inScope.values()) taken.add(flag);
   const terms = new GraphTerms(setting, new VariableNames(taken));
   const group = new GroupCompiler(terms, new Map());
   const lines: string[] = [];
@@ -231,8 +243,13 @@ export function compileRuleToSparql(rule: RuleDefinition, setting: PushDownSetti
   const lists = new Set(variables.cycles.map((cycle) => cycle.members));
   const bound = new Set<Variable>(lists);
   lines.push(...group.compile(rule.match, bound, true));
-  if (!lists.has(rule.report.focus)) lines.push(`FILTER(${terms.kind('in-scope', variableRef(rule.report.focus))})`);
-  const selected = [...variables.nodes, ...variables.cycles.flatMap((cycle) => [cycle.members, cycle.next, cycle.inScope])];
+  for (const [variable, flag] of variables.inScope) lines.push(`BIND(${terms.kind('in-scope', variableRef(variable))} AS ${flag})`);
+  if (!lists.has(rule.report.focus) && variables.inScope.size === 0) lines.push(`FILTER(${terms.kind('in-scope', variableRef(rule.report.focus))})`);
+  const selected = [
+    ...variables.nodes,
+    ...variables.cycles.flatMap((cycle) => [cycle.members, cycle.next, cycle.inScope]),
+    ...variables.inScope.values(),
+  ];
   const from = setting.graph === undefined ? [] : [`FROM ${iriRef(setting.graph, 'graph')}`];
   const sparql = [
     `# isapart rule ${rule.id.replace(/[\r\n]/g, ' ')}, pushed down`,

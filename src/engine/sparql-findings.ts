@@ -79,6 +79,9 @@ export function findingsFromRows(rule: RuleDefinition, level: Level, rows: Sparq
   for (const cycle of variables.cycles) for (const row of rows) inScopeMembers.set(termOf(row, cycle.members), booleanOf(row, cycle.inScope));
   const place = endpointLocation(location);
   const chosen = new Map<string, { finding: Finding; key: string }>();
+  // Being in scope belongs to the term, so flags read before an unordered pair is sorted still hold after.
+  const flags = new Map<string, boolean>();
+  for (const [variable, flag] of variables.inScope) for (const row of rows) flags.set(termOf(row, variable), booleanOf(row, flag));
   for (const solution of solutions) {
     for (const [left, right] of rule.report.unordered) {
       const a = solution.nodes.get(left);
@@ -97,6 +100,7 @@ export function findingsFromRows(rule: RuleDefinition, level: Level, rows: Sparq
     const focus = members(rule.report.focus)[0];
     // The query keeps only in-scope foci; a cycle's focus is its first member, in scope when any member is.
     if (lists.has(rule.report.focus) && inScopeMembers.get(focus) !== true) continue;
+    if (variables.inScope.size > 0 && flags.get(focus) !== true) continue;
     const nodes = rule.report.nodes.flatMap(members);
     const fingerprint = fingerprintOf(rule.id, nodes);
     const parts = rule.report.message.split(/(\{[A-Za-z_][A-Za-z0-9_]*\})/);
