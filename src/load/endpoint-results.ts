@@ -44,6 +44,11 @@ export function parseResultsJson(text: string): ResultRow[] {
       }
     }
   }
+  // Virtuoso writes typed literals as `typed-literal`, the form of the 2008 W3C results note (seen on
+  // Virtuoso 7.2.5); SPARQL 1.1 results name every literal `literal`, so readers downstream see one form.
+  for (const row of bindings as ResultRow[]) {
+    for (const term of Object.values(row)) if (term.type === 'typed-literal') term.type = 'literal';
+  }
   return bindings as ResultRow[];
 }
 

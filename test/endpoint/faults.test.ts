@@ -276,3 +276,11 @@ describe('the request form', () => {
     expect(sent.every((request) => request.contentType === 'application/x-www-form-urlencoded')).toBe(true);
   });
 });
+
+describe('results in the 2008 form', () => {
+  it('a `typed-literal` term (as Virtuoso writes them) is read as a literal', async () => {
+    const { parseResultsJson } = await import('../../src/load/endpoint-results.js');
+    const rows = parseResultsJson('{"results":{"bindings":[{"n":{"type":"typed-literal","datatype":"http://www.w3.org/2001/XMLSchema#integer","value":"26"}}]}}');
+    expect(rows[0].n).toEqual({ type: 'literal', datatype: 'http://www.w3.org/2001/XMLSchema#integer', value: '26' });
+  });
+});
