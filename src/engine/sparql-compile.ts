@@ -1,5 +1,6 @@
 // Compiles a rule to one SPARQL 1.1 SELECT over the role predicates, for push-down to an endpoint.
 import type { NodeKind } from '../graph/hierarchy-graph.js';
+import { singleSteps } from './automaton.js';
 import { matchesEmpty, parseValidPath, type PathExpression } from './path.js';
 import type { MatchEntry, RuleDefinition, Variable } from './rule.js';
 import { GraphTerms, VariableNames, type PushDownSetting } from './sparql-graph-terms.js';
@@ -105,7 +106,10 @@ class GroupCompiler {
     for (const entry of entries) if (entry.type === 'path') inPaths.add(entry.subject).add(entry.object);
     const certified = this.certified(entries, outer);
 
-    for (const entry of entries) {
+    // Single-step entries first: they bind both ends, so no closure is evaluated with both ends
+    // open (which some stores refuse, and which is slow everywhere). The order changes no solution.
+    const single = (entry: MatchEntry): number => (entry.type === 'path' && singleSteps(this.path(entry)) !== undefined ? 0 : 1);
+    for (const entry of [...entries].sort((left, right) => single(left) - single(right))) {
       if (entry.type === 'cycle') {
         if (!topLevel) throw new PushDownError('a cycle entry inside not cannot be pushed down', 'move the cycle entry to the top level of match');
       } else if (entry.type === 'path') {
@@ -203,7 +207,6 @@ class GroupCompiler {
       `${step} .`,
       `${names.next} (${closure.text})* ${members} .`,
       `FILTER(${this.terms.valid(members)} && ${this.terms.valid(names.next)})`,
-      `BIND(${this.terms.kind('in-scope', members)} AS ${names.inScope})`,
     ];
   }
 
@@ -243,7 +246,9 @@ export function compileRuleToSparql(rule: RuleDefinition, setting: PushDownSetti
   const lists = new Set(variables.cycles.map((cycle) => cycle.members));
   const bound = new Set<Variable>(lists);
   lines.push(...group.compile(rule.match, bound, true));
-  for (const [variable, flag] of variables.inScope) lines.push(`BIND(${terms.kind('in-scope', variableRef(variable))} AS ${flag})`);
+  // Flags come last: their OPTIONAL must see every other pattern's bindings.
+  for (const cycle of variables.cycles) lines.push(...terms.inScopeFlag(variableRef(cycle.members), cycle.inScope));
+  for (const [variable, flag] of variables.inScope) lines.push(...terms.inScopeFlag(variableRef(variable), flag));
   if (!lists.has(rule.report.focus) && variables.inScope.size === 0) lines.push(`FILTER(${terms.kind('in-scope', variableRef(rule.report.focus))})`);
   const selected = [
     ...variables.nodes,

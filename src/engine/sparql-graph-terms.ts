@@ -67,7 +67,7 @@ function roleElements(roleMap: RoleMap, role: Role, backward: boolean): string[]
 /** The SPARQL fragments of one setting; every IRI in them was validated on the way in. */
 export class GraphTerms {
   readonly readsAllDisjointClasses: boolean;
-  private readonly inScopeTemplate: (term: string, fresh: () => string) => string;
+  private readonly inScopeTemplate: (term: string, fresh: () => string, blankSubject?: string) => string;
 
   constructor(
     readonly setting: PushDownSetting,
@@ -145,6 +145,20 @@ export class GraphTerms {
       case 'in-scope':
         return this.inScopeTemplate(term, () => this.names.fresh());
     }
+  }
+
+  /**
+   * Patterns that bind `flag` to whether a bound term is in scope, for the end of the top-level
+   * group. EXISTS inside BIND is refused by some stores (Virtuoso 7.2), so a blank node's
+   * statements are looked up with an OPTIONAL instead (SELECT DISTINCT folds the extra rows).
+   */
+  inScopeFlag(term: string, flag: string): string[] {
+    const predicate = this.names.fresh();
+    const object = this.names.fresh();
+    return [
+      `OPTIONAL { ${term} ${predicate} ${object} . FILTER(isBlank(${term})) }`,
+      `BIND(${this.inScopeTemplate(term, () => this.names.fresh(), `BOUND(${predicate})`)} AS ${flag})`,
+    ];
   }
 
   /** A group pattern binding an unbound variable to every node of a kind. */
@@ -268,11 +282,11 @@ export class GraphTerms {
 }
 
 /** The in-scope test of src/graph/scope.ts and build.ts as a SPARQL expression template over one term. */
-function inScopeExpression(prefixes: readonly string[]): (term: string, fresh: () => string) => string {
+function inScopeExpression(prefixes: readonly string[]): (term: string, fresh: () => string, blankSubject?: string) => string {
   for (const prefix of prefixes) iriRef(prefix, 'scope prefix');
   const startsWithAny = (text: string, list: readonly string[]): string =>
     list.length === 0 ? 'false' : `(${list.map((prefix) => `STRSTARTS(${text}, ${stringLiteral(prefix)})`).join(' || ')})`;
-  return (term, fresh) => {
+  return (term, fresh, blankSubject) => {
     const text = `STR(${term})`;
     // A term of a built-in vocabulary is in scope only under a prefix that names its namespace.
     const builtIn = BUILT_IN_VOCABULARY_NAMESPACES.flatMap((namespace) => {
@@ -282,6 +296,6 @@ function inScopeExpression(prefixes: readonly string[]): (term: string, fresh: (
     const outside = `!${startsWithAny(text, BUILT_IN_VOCABULARY_NAMESPACES)}${prefixes.length === 0 ? '' : ` && ${startsWithAny(text, prefixes)}`}`;
     const iri = `(isIRI(${term}) && (${[...builtIn, `(${outside})`].join(' || ')}))`;
     // A blank node is in scope when it is the subject of a statement (design.md).
-    return `(${iri} || (isBlank(${term}) && EXISTS { ${term} ${fresh()} ${fresh()} }))`;
+    return `(${iri} || (isBlank(${term}) && ${blankSubject ?? `EXISTS { ${term} ${fresh()} ${fresh()} }`}))`;
   };
 }
