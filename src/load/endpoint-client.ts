@@ -92,7 +92,8 @@ export class SparqlClient {
     // One signal covers the whole exchange, the answer's body included: a server that stalls mid-answer times out too.
     const signal = AbortSignal.timeout(settings.timeoutSeconds * 1000);
     try {
-      const response = await fetch(this.options.endpoint, { method: 'POST', headers, body, signal, redirect: 'follow' });
+      // Redirects are not followed: the credentials would go wherever they point.
+      const response = await fetch(this.options.endpoint, { method: 'POST', headers, body, signal, redirect: 'manual' });
       const text = await response.text();
       const contentType = (response.headers.get('content-type') ?? '').split(';')[0].trim().toLowerCase();
       if (!response.ok) return this.statusFailure(response, serverMessage(text, contentType === 'text/html'), purpose);
@@ -105,7 +106,12 @@ export class SparqlClient {
   private statusFailure(response: Response, said: string, purpose: string): AttemptFailure {
     const status = `HTTP ${response.status}${response.statusText ? ` ${response.statusText}` : ''}`;
     const message = `the SPARQL endpoint answered ${status} to the query for ${purpose}${said === '' ? '' : `: ${said}`}`;
-    return { retry: response.status >= 500, kind: 'status', problem: this.problem(message, statusHint(response.status, said, this.options.settings)) };
+    const location = response.headers.get('location');
+    const hint =
+      response.status >= 300 && response.status < 400
+        ? `the endpoint redirects${location === null ? '' : ` to ${location}`}; give that URL with --endpoint (isapart does not follow redirects, so credentials go nowhere else)`
+        : statusHint(response.status, said, this.options.settings);
+    return { retry: response.status >= 500, kind: 'status', problem: this.problem(message, hint) };
   }
 
   private connectionFailure(error: unknown, purpose: string): AttemptFailure {

@@ -284,3 +284,14 @@ describe('results in the 2008 form', () => {
     expect(rows[0].n).toEqual({ type: 'literal', datatype: 'http://www.w3.org/2001/XMLSchema#integer', value: '26' });
   });
 });
+
+describe('redirects', () => {
+  it('are not followed, so credentials go nowhere else: exit 2 with the new URL as hint', async () => {
+    server.fault = () => ({ kind: 'status', status: 307, body: '' });
+    const { code, out } = await run(folder, ['check', '--endpoint', server.url, '--no-color']);
+    server.fault = () => undefined;
+    expect(code).toBe(2);
+    expect(out).toContain('answered HTTP 307 Temporary Redirect');
+    expect(out).toContain('isapart does not follow redirects');
+  });
+});
