@@ -1,5 +1,5 @@
 // Turns the rows of a pushed-down rule's SELECT into findings, as the in-memory run would make them.
-import type { Position } from '../load/statement.js';
+import { endpointPosition } from '../load/endpoint-location.js';
 import type { Finding, Level } from './finding.js';
 import { fingerprintOf } from './fingerprint.js';
 import type { RuleDefinition, Variable } from './rule.js';
@@ -14,17 +14,6 @@ export class PushDownResultError extends Error {
     super(message);
     this.name = 'PushDownResultError';
   }
-}
-
-/**
- * Where findings read from an endpoint are reported: the endpoint URL, with the graph as the
- * `default-graph-uri` parameter of the SPARQL 1.1 Protocol when one graph was linted; line and
- * column 0, since an endpoint has no statement positions.
- */
-export function endpointLocation(location: { endpoint: string; graph?: string }): Position {
-  if (location.graph === undefined) return { file: location.endpoint, line: 0, column: 0 };
-  const separator = location.endpoint.includes('?') ? '&' : '?';
-  return { file: `${location.endpoint}${separator}default-graph-uri=${encodeURIComponent(location.graph)}`, line: 0, column: 0 };
 }
 
 /** The term of a bound variable as the graph writes it: the IRI, or `_:label` for a blank node. */
@@ -77,7 +66,7 @@ export function findingsFromRows(rule: RuleDefinition, level: Level, rows: Sparq
   const lists = new Set(variables.cycles.map((cycle) => cycle.members));
   const inScopeMembers = new Map<string, boolean>();
   for (const cycle of variables.cycles) for (const row of rows) inScopeMembers.set(termOf(row, cycle.members), booleanOf(row, cycle.inScope));
-  const place = endpointLocation(location);
+  const place = endpointPosition(location.endpoint, location.graph);
   const chosen = new Map<string, { finding: Finding; key: string }>();
   // Being in scope belongs to the term, so flags read before an unordered pair is sorted still hold after.
   const flags = new Map<string, boolean>();
