@@ -163,11 +163,36 @@ export class GraphTerms {
 
   /** A group pattern binding an unbound variable to every node of a kind. */
   kindGenerator(kind: NodeKind, variable: string): string {
-    const candidates = kind === 'in-scope' ? this.nodeCandidates(variable) : this.kindCandidates(kind, variable);
+    // A class is bound exactly by its edges to valid nodes (and declarations), so no test follows.
+    const candidates = kind === 'in-scope' ? this.nodeCandidates(variable) : kind === 'class' ? this.classes(variable) : this.kindCandidates(kind, variable);
     if (candidates.length === 0) return 'FILTER(false)';
     const union = candidates.map((candidate) => `{ ${candidate} }`).join(' UNION ');
-    const exact = kind === 'in-scope' || kind === 'root' ? `${this.isNode(variable)} && ${this.kind(kind, variable)}` : this.kind(kind, variable);
-    return `{ SELECT DISTINCT ${variable} WHERE { ${union} } } FILTER(${this.valid(variable)} && ${exact})`;
+    const exact =
+      kind === 'class' ? '' : ` && ${kind === 'in-scope' || kind === 'root' ? `${this.isNode(variable)} && ${this.kind(kind, variable)}` : this.kind(kind, variable)}`;
+    return `{ SELECT DISTINCT ${variable} WHERE { ${union} } } FILTER(${this.valid(variable)}${exact})`;
+  }
+
+  /** Patterns that bind exactly the classes, but for the check that the variable itself is valid. */
+  private classes(variable: string): string[] {
+    const instanceOf = this.rolePath('instance-of');
+    const subclassOf = this.rolePath('subclass-of');
+    const edge = (pattern: string, other: string): string => `${pattern} . FILTER(${this.valid(other)})`;
+    const patterns: string[] = [];
+    if (instanceOf !== undefined) {
+      const other = this.names.fresh();
+      patterns.push(edge(`${other} ${instanceOf} ${variable}`, other));
+    }
+    if (subclassOf !== undefined) {
+      const above = this.names.fresh();
+      const below = this.names.fresh();
+      patterns.push(edge(`${variable} ${subclassOf} ${above}`, above), edge(`${below} ${subclassOf} ${variable}`, below));
+    }
+    const types = [...this.setting.roleMap.classTypes].sort();
+    if (types.length > 0) {
+      const type = this.names.fresh();
+      patterns.push(`${variable} ${iriRef(RDF_TYPE, 'rdf:type')} ${type} . FILTER(${type} IN (${types.map((iri) => iriRef(iri, 'class type')).join(', ')}))`);
+    }
+    return patterns;
   }
 
   /** A group pattern binding an unbound variable to every node of the graph. */
