@@ -25,6 +25,7 @@ Suppress one finding in a Turtle file with a comment at the end of the statement
 on the line above it:   # isapart-allow RULE-ID: reason
 Config: the nearest isapart.yaml upward from the first path ('isapart init' writes a starter).
 Endpoint settings go in its endpoint: section (page-size, timeout, retries, retry-delay, post: query|form,
+results: json|n-triples,
 authorization-env: the NAME of an environment variable holding the Authorization header value).`;
 
 const RULES_EXAMPLES = `

@@ -6,7 +6,7 @@ import { suggestionHint } from './nearest.js';
 import { blameNode, describeNode, mappingEntries, reportAt, stringValue, type MappingEntry, type YamlReadContext } from './yaml-nodes.js';
 
 /** The keys of `endpoint:`, as users write them. */
-export const ENDPOINT_KEYS = ['page-size', 'timeout', 'retries', 'retry-delay', 'authorization-env', 'post'] as const;
+export const ENDPOINT_KEYS = ['page-size', 'timeout', 'retries', 'retry-delay', 'authorization-env', 'post', 'results'] as const;
 
 /** An environment variable name as POSIX shells accept it (common practice). */
 const VARIABLE_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
@@ -23,7 +23,7 @@ function readNumber(context: YamlReadContext, entry: MappingEntry, bounds: { min
 }
 
 /**
- * `endpoint: { page-size, timeout, retries, retry-delay, authorization-env, post }`. The
+ * `endpoint: { page-size, timeout, retries, retry-delay, authorization-env, post, results }`. The
  * credentials are never in the file: `authorization-env` names the environment variable that
  * holds the Authorization header's value.
  */
@@ -67,6 +67,15 @@ export function readEndpoint(context: YamlReadContext, entry: MappingEntry, conf
           reportAt(context, blameNode(field), `\`endpoint: post\` must be \`query\` or \`form\`, found ${describeNode(field.value)}`, 'query: the query as the POST body (application/sparql-query); form: as a form field (what Virtuoso 7.2 needs)');
         } else {
           settings.post = form;
+        }
+        break;
+      }
+      case 'results': {
+        const form = stringValue(field.value);
+        if (form !== 'json' && form !== 'n-triples') {
+          reportAt(context, blameNode(field), `\`endpoint: results\` must be \`json\` or \`n-triples\`, found ${describeNode(field.value)}`, 'json: SELECT pages as SPARQL JSON results; n-triples: CONSTRUCT pages as N-Triples or Turtle');
+        } else {
+          settings.results = form;
         }
         break;
       }

@@ -3,6 +3,9 @@
 /** How a query travels (SPARQL 1.1 Protocol, section 2.1): the query as the POST body, or as a form field. */
 export type QueryPost = 'query' | 'form';
 
+/** How pages of statements come back: SELECT rows as SPARQL JSON results, or CONSTRUCT triples as N-Triples (or Turtle). */
+export type PageResults = 'json' | 'n-triples';
+
 /** The `endpoint:` settings of isapart.yaml, with defaults filled in. */
 export interface EndpointSettings {
   /** Rows asked for per request (LIMIT of each page). */
@@ -17,6 +20,8 @@ export interface EndpointSettings {
   authorizationEnv?: string;
   /** `query`: POST with `Content-Type: application/sparql-query`; `form`: POST `application/x-www-form-urlencoded`. */
   post: QueryPost;
+  /** `json`: SELECT pages read as SPARQL 1.1 Query Results JSON; `n-triples`: CONSTRUCT pages read with n3. */
+  results: PageResults;
 }
 
 /** The settings when isapart.yaml has no `endpoint:` section. */
@@ -26,4 +31,5 @@ export const DEFAULT_ENDPOINT_SETTINGS: Readonly<EndpointSettings> = Object.free
   retries: 3,
   retryDelaySeconds: 1,
   post: 'query',
+  results: 'json',
 });

@@ -1,4 +1,5 @@
 // Reading the hierarchy out of a SPARQL 1.1 endpoint: one paged SELECT per predicate the graph reads.
+import { Parser as N3Parser } from 'n3';
 import { iriProblem } from '../config/iri-check.js';
 import type { RoleMap } from '../roles/role.js';
 import {
@@ -143,6 +144,51 @@ export function pageQuery(predicate: string, graph: string | undefined, limit: n
   return `# isapart extraction: statements of <${predicate}>\nSELECT DISTINCT ?s ?o\n${fromClause(graph)}WHERE { ?s ${iriRef(predicate)} ?o }\nORDER BY ?s ?o\nLIMIT ${limit}\nOFFSET ${offset}\n`;
 }
 
+/** The query of one page as triples: the same window as `pageQuery`, as a CONSTRUCT of its solutions. */
+export function constructPageQuery(predicate: string, graph: string | undefined, limit: number, offset: number): string {
+  const p = iriRef(predicate);
+  return `# isapart extraction: statements of <${predicate}>\nCONSTRUCT { ?s ${p} ?o }\n${fromClause(graph)}WHERE { SELECT DISTINCT ?s ?o WHERE { ?s ${p} ?o } ORDER BY ?s ?o LIMIT ${limit} OFFSET ${offset} }\n`;
+}
+
+/** Media types of a CONSTRUCT page, most wanted first (RFC 9110 quality values). */
+const TRIPLES_ACCEPT = 'application/n-triples, text/plain;q=0.9, text/turtle;q=0.8';
+
+/** The n3 syntax of a triples answer's media type (N-Triples once was served as text/plain), or undefined. */
+function triplesFormat(contentType: string): 'N-Triples' | 'Turtle' | undefined {
+  if (contentType === 'application/n-triples' || contentType === 'text/plain') return 'N-Triples';
+  if (contentType === 'text/turtle') return 'Turtle';
+  return undefined;
+}
+
+/** One CONSTRUCT page as statements of the predicate; anything else in the answer is an EndpointFailure. */
+async function constructStatements(read: PredicateRead, offset: number): Promise<Statement[]> {
+  const { client, request, predicate } = read;
+  const purpose = `<${predicate}> statements`;
+  const answer = await client.send(constructPageQuery(predicate, request.graph, request.settings.pageSize, offset), TRIPLES_ACCEPT, purpose);
+  const malformed = (reason: string): EndpointFailure =>
+    new EndpointFailure({ file: read.file, line: 0, column: 0, message: `the SPARQL endpoint's answer to the query for ${purpose} cannot be read: ${reason}`, hint: 'set `endpoint: { results: json }` to read SELECT results instead' });
+  const maxRows = Number(answer.headers.get('x-sparql-maxrows') ?? Number.NaN);
+  if (Number.isFinite(maxRows) && maxRows < request.settings.pageSize) {
+    throw malformed(`the server returns at most ${maxRows} rows per answer (X-SPARQL-MaxRows), fewer than the page size ${request.settings.pageSize}; set \`endpoint: { page-size: ${maxRows} }\``);
+  }
+  const format = triplesFormat(answer.contentType);
+  if (format === undefined) throw malformed(`it is \`${answer.contentType || 'of no stated media type'}\`, not N-Triples or Turtle`);
+  let quads;
+  try {
+    quads = new N3Parser({ format, blankNodePrefix: '' }).parse(answer.body);
+  } catch (error) {
+    throw malformed(error instanceof Error ? error.message : String(error));
+  }
+  return quads.map((quad) => {
+    if (quad.predicate.value !== predicate) throw malformed(`it holds a statement of <${quad.predicate.value}>, which was not asked for`);
+    const node = (term: typeof quad.subject | typeof quad.object): string =>
+      term.termType === 'BlankNode' ? read.blanks.label(term.value) : term.value;
+    if (quad.subject.termType !== 'NamedNode' && quad.subject.termType !== 'BlankNode') throw malformed('a subject is neither an IRI nor a blank node');
+    const object = quad.object.termType === 'Literal' ? { value: quad.object.value, datatype: quad.object.datatype.value, language: quad.object.language } : node(quad.object);
+    return { subject: node(quad.subject), predicate, object, graph: '', position: { file: read.file, line: 0, column: 0 }, objectLine: 0 };
+  });
+}
+
 /**
  * Reads the statements the hierarchy graph needs from an endpoint into one LoadedSource whose
  * positions name the endpoint (and graph). Each predicate is counted, then read page by page;
@@ -189,19 +235,10 @@ async function readPredicate(read: PredicateRead): Promise<void> {
   const total = integerOf(await selectRows(client, countQuery(predicate, request.graph), purpose, read.file), 'count');
   let received = 0;
   while (received < total) {
-    const rows = await selectRows(client, pageQuery(predicate, request.graph, request.settings.pageSize, received), purpose, read.file, request.settings.pageSize);
-    if (rows.length === 0) break;
-    for (const row of rows) {
-      read.statements.push({
-        subject: nodeOf(row.s, 's', read.blanks),
-        predicate,
-        object: objectOf(row.o, 'o', read.blanks),
-        graph: '',
-        position: { file: read.file, line: 0, column: 0 },
-        objectLine: 0,
-      });
-    }
-    received += rows.length;
+    const page = request.settings.results === 'n-triples' ? await constructStatements(read, received) : await selectStatements(read, received);
+    if (page.length === 0) break;
+    for (const statement of page) read.statements.push(statement);
+    received += page.length;
     request.progress?.(predicate, received, total);
   }
   if (received !== total) {
@@ -213,6 +250,20 @@ async function readPredicate(read: PredicateRead): Promise<void> {
       hint: 'the data changed during the extraction, or the server drops rows; run again when no load is running',
     });
   }
+}
+
+/** One SELECT page as statements of the predicate. */
+async function selectStatements(read: PredicateRead, offset: number): Promise<Statement[]> {
+  const { client, request, predicate } = read;
+  const rows = await selectRows(client, pageQuery(predicate, request.graph, request.settings.pageSize, offset), `<${predicate}> statements`, read.file, request.settings.pageSize);
+  return rows.map((row) => ({
+    subject: nodeOf(row.s, 's', read.blanks),
+    predicate,
+    object: objectOf(row.o, 'o', read.blanks),
+    graph: '',
+    position: { file: read.file, line: 0, column: 0 },
+    objectLine: 0,
+  }));
 }
 
 /** Sends a SELECT and reads its rows; an answer that is not SPARQL JSON results is an EndpointFailure. */

@@ -60,6 +60,19 @@ describe('--endpoint on the demo', () => {
     expect(server.requests.slice(before).every((request) => request.contentType.startsWith('application/sparql-query'))).toBe(true);
   });
 
+  it('gives the same findings with CONSTRUCT pages read as N-Triples (results: n-triples)', async () => {
+    const triples = demoConfigFolder('endpoint: { page-size: 25, retry-delay: 0.01, results: n-triples }');
+    const files = await check({ paths: [DEMO], cwd: DEMO, configFile: `${DEMO}/isapart.yaml` });
+    const before = server.requests.length;
+    const endpoint = await check({ paths: [], cwd: triples, configFile: `${triples}/isapart.yaml`, endpoint: server.url, graph: DEMO_GRAPH });
+    expect(endpoint.context.inputErrors).toEqual([]);
+    expect(comparableFindings(endpoint.findings)).toEqual(comparableFindings(files.findings));
+    const constructs = server.requests.slice(before).filter((request) => request.query.includes('\nCONSTRUCT {'));
+    expect(constructs.length).toBeGreaterThan(3);
+    // sparqljs, an independent SPARQL 1.1 grammar, reads every CONSTRUCT page query.
+    for (const request of constructs) expect(() => new SparqlParser().parse(request.query)).not.toThrow();
+  });
+
   it('reads the default graph when no --graph is given, and a graph-less store gives nothing from a named graph', async () => {
     const other = await startSparqlServer(demoStore(null));
     try {

@@ -285,6 +285,22 @@ describe('results in the 2008 form', () => {
   });
 });
 
+describe('CONSTRUCT pages', () => {
+  it('an answer that is not N-Triples or Turtle, or does not parse: exit 2', async () => {
+    const triples = demoConfigFolder('endpoint: { results: n-triples, retry-delay: 0.01 }');
+    for (const [fault, expected] of [
+      [{ kind: 'body', contentType: 'application/sparql-results+json', body: '{}' }, 'it is `application/sparql-results+json`, not N-Triples or Turtle'],
+      [{ kind: 'body', contentType: 'application/n-triples', body: '<https://a.example/x> <' }, "cannot be read"],
+    ] as const) {
+      server.fault = (_index, request) => (request.query.includes('CONSTRUCT') ? fault : undefined);
+      const { code, out } = await run(triples, ['check', '--endpoint', server.url, '--graph', DEMO_GRAPH, '--no-color']);
+      expect(code).toBe(2);
+      expect(out).toContain(expected);
+    }
+    server.fault = () => undefined;
+  });
+});
+
 describe('redirects', () => {
   it('are not followed, so credentials go nowhere else: exit 2 with the new URL as hint', async () => {
     server.fault = () => ({ kind: 'status', status: 307, body: '' });

@@ -65,6 +65,15 @@ export async function startSparqlServer(store: oxigraph.Store = new oxigraph.Sto
       response.writeHead(200, { 'Content-Type': fault.contentType, ...fault.headers }).end(fault.body);
       return;
     }
+    if (/^(\s*#[^\n]*\n)*\s*CONSTRUCT\b/i.test(seen.query)) {
+      try {
+        const triples = store.query(seen.query, { results_format: 'application/n-triples' }) as string;
+        response.writeHead(200, { 'Content-Type': 'application/n-triples' }).end(triples);
+      } catch (error) {
+        response.writeHead(400, { 'Content-Type': 'text/plain' }).end(`query refused: ${String(error)}`);
+      }
+      return;
+    }
     let json: string;
     try {
       json = store.query(seen.query, { results_format: 'application/sparql-results+json' }) as string;
