@@ -53,6 +53,14 @@ describe('Virtuoso: --endpoint extraction', () => {
     expect(endpoint.context.sources[0].statements).toBeGreaterThan(200);
   });
 
+  it('gives the findings of linting the demo files with CONSTRUCT pages read as N-Triples', async () => {
+    writeFileSync(path.join(work, 'triples.yaml'), `${readDemoConfig()}\nendpoint: { post: form, results: n-triples, page-size: 40, retries: 0 }\n`);
+    const files = await check({ paths: [DEMO], cwd: DEMO, configFile: path.join(DEMO, 'isapart.yaml') });
+    const endpoint = await check({ paths: [], cwd: work, configFile: path.join(work, 'triples.yaml'), endpoint: virtuoso.sparqlUrl, graph: DEMO_GRAPH });
+    expect(endpoint.context.inputErrors).toEqual([]);
+    expect(comparableFindings(endpoint.findings)).toEqual(comparableFindings(files.findings));
+  });
+
   it('gives the findings of linting the generated 20,000-class file, read over several pages', async () => {
     const files = await check({ paths: [generated], cwd: work, configFile: path.join(work, 'generated.yaml') });
     const endpoint = await check({ paths: [], cwd: work, configFile: path.join(work, 'generated.yaml'), endpoint: virtuoso.sparqlUrl, graph: GENERATED_GRAPH });
