@@ -1,6 +1,6 @@
 // Role paths as SPARQL 1.1 property paths over the predicates that play each role.
 import { BACKWARD, singleSteps } from './automaton.js';
-import { formatPath, type PathExpression } from './path.js';
+import { formatPath, matchesEmpty, type PathExpression } from './path.js';
 import type { GraphTerms } from './sparql-graph-terms.js';
 import { PushDownError } from './sparql-text.js';
 
@@ -78,6 +78,7 @@ export function pathPattern(subject: string, path: PathExpression, object: strin
     if (branches.length === 0) return undefined;
     return branches.length === 1 ? branches[0] : branches.map((branch) => `{ ${branch} }`).join(' UNION ');
   }
+  if (subject === object && path.type === 'modified' && path.modifier === '+' && !matchesEmpty(path.path)) return closedWalkPattern(subject, path.path, terms);
   const compiled = propertyPath(path, terms);
   if (compiled.kind === 'empty') return undefined;
   if (compiled.kind === 'zero-length') {
@@ -87,4 +88,18 @@ export function pathPattern(subject: string, path: PathExpression, object: strin
     );
   }
   return `${subject} ${compiled.text} ${object}`;
+}
+
+/**
+ * `[?x, X+, ?x]` as a first step and a way back, `?x X ?next . ?next X* ?x`: a closure from a
+ * variable back to itself gives no rows on some stores (Virtuoso 7.2), and the step lets the next
+ * node be checked as the in-memory graph would.
+ */
+function closedWalkPattern(node: string, base: PathExpression, terms: GraphTerms): string | undefined {
+  const next = terms.names.fresh();
+  const first = pathPattern(node, base, next, terms);
+  const closure = propertyPath(base, terms);
+  if (first === undefined || closure.kind === 'empty') return undefined;
+  const back = closure.kind === 'path' ? `${next} (${closure.text})* ${node}` : `FILTER(sameTerm(${next}, ${node}))`;
+  return `${first} . ${back} . FILTER(${terms.valid(next)})`;
 }
