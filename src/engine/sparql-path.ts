@@ -59,10 +59,11 @@ export function propertyPath(path: PathExpression, terms: GraphTerms): CompiledP
 /**
  * A match entry `[subject, PATH, object]` as a group pattern. A path of single role steps is
  * written exactly, with both ends checked to be nodes; a longer path as a property path whose ends
- * are checked (its inner nodes are not: see the README). Returns undefined when the path matches
- * nothing.
+ * are checked (its inner nodes are not: see the README). `subjectBound` says that an earlier
+ * pattern binds the subject, which picks the form of a closed walk. Returns undefined when the path
+ * matches nothing.
  */
-export function pathPattern(subject: string, path: PathExpression, object: string, terms: GraphTerms): string | undefined {
+export function pathPattern(subject: string, path: PathExpression, object: string, terms: GraphTerms, subjectBound = false): string | undefined {
   const steps = singleSteps(path);
   if (steps !== undefined) {
     const elements: string[] = [];
@@ -78,7 +79,7 @@ export function pathPattern(subject: string, path: PathExpression, object: strin
     if (branches.length === 0) return undefined;
     return branches.length === 1 ? branches[0] : branches.map((branch) => `{ ${branch} }`).join(' UNION ');
   }
-  if (subject === object && path.type === 'modified' && path.modifier === '+' && !matchesEmpty(path.path)) return closedWalkPattern(subject, path.path, terms);
+  if (subject === object && path.type === 'modified' && path.modifier === '+' && !matchesEmpty(path.path)) return closedWalkPattern(subject, path.path, terms, subjectBound);
   const compiled = propertyPath(path, terms);
   if (compiled.kind === 'empty') return undefined;
   if (compiled.kind === 'zero-length') {
@@ -91,15 +92,19 @@ export function pathPattern(subject: string, path: PathExpression, object: strin
 }
 
 /**
- * `[?x, X+, ?x]` as a first step and a way back, `?x X ?next . ?next X* ?x`: a closure from a
- * variable back to itself gives no rows on some stores (Virtuoso 7.2), and the step lets the next
- * node be checked as the in-memory graph would.
+ * `[?x, X+, ?x]` as a closure and one step, never as a closure from a variable back to itself (which
+ * gives no rows on Virtuoso 7.2). When ?x is already bound, the closure starts at ?x and ends at a
+ * fresh variable, and one step leads back: `?x X* ?last . ?last X ?x`; a closure into a bound ?x
+ * from a node bound by a step gives wrong answers there. When ?x is not bound yet, a first step
+ * binds the next node and the closure leads back: `?x X ?next . ?next X* ?x`, as a closure may not
+ * start unbound. Either way the inner node is checked as the in-memory graph would.
  */
-function closedWalkPattern(node: string, base: PathExpression, terms: GraphTerms): string | undefined {
-  const next = terms.names.fresh();
-  const first = pathPattern(node, base, next, terms);
+function closedWalkPattern(node: string, base: PathExpression, terms: GraphTerms, nodeBound: boolean): string | undefined {
+  const inner = terms.names.fresh();
+  const step = nodeBound ? pathPattern(inner, base, node, terms) : pathPattern(node, base, inner, terms);
   const closure = propertyPath(base, terms);
-  if (first === undefined || closure.kind === 'empty') return undefined;
-  const back = closure.kind === 'path' ? `${next} (${closure.text})* ${node}` : `FILTER(sameTerm(${next}, ${node}))`;
-  return `${first} . ${back} . FILTER(${terms.valid(next)})`;
+  if (step === undefined || closure.kind === 'empty') return undefined;
+  if (closure.kind !== 'path') return `${step} . FILTER(sameTerm(${inner}, ${node})) . FILTER(${terms.valid(inner)})`;
+  const walk = nodeBound ? `${node} (${closure.text})* ${inner}` : `${inner} (${closure.text})* ${node}`;
+  return nodeBound ? `${walk} . ${step} . FILTER(${terms.valid(inner)})` : `${step} . ${walk} . FILTER(${terms.valid(inner)})`;
 }
