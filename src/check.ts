@@ -4,7 +4,7 @@ import { findConfigFile, loadConfig, emptyConfig, mergeCommandLine, checkRuleIds
 import type { IsapartConfig } from './config/config.js';
 import { suggestionHint } from './config/nearest.js';
 import { unmatchedSettingWarnings } from './config/unmatched-settings.js';
-import type { Finding, Level, RuleLevel } from './engine/finding.js';
+import type { Finding, Level, RuleFailure, RuleLevel } from './engine/finding.js';
 import type { RuleDefinition } from './engine/rule.js';
 import { createRegistry, duplicateRuleErrors } from './engine/registry.js';
 import { loadBuiltinRules, loadRuleDir } from './engine/rule-file.js';
@@ -20,11 +20,12 @@ import { predicatesTheGraphReads } from './graph/read-predicates.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { findingTermFacts } from './report/term-facts.js';
 import { buildRoleMap } from './roles/role-map.js';
+import { endpointRequest, loadFromEndpoint, pushDownRules, type EndpointOptions } from './check-endpoint.js';
 import { toolVersion } from './version.js';
 
 /** What one run is asked to do; the command line parses into exactly this. */
-export interface CheckOptions {
-  /** Files or folders; '-' for stdin. */
+export interface CheckOptions extends EndpointOptions {
+  /** Files or folders; '-' for stdin (not read when `endpoint` is given). */
   paths: string[];
   cwd?: string;
   stdin?: NodeJS.ReadableStream;
@@ -66,23 +67,52 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   // statements are stored, the others are counted as read) and JSON-LD's local contexts.
   // checkLoaded reads the config again and reports its errors.
   const { config } = readConfig(options, cwd);
+  const roleMap = buildRoleMap(config.presets, config.roles);
+  if (options.endpoint !== undefined) {
+    const endpoint = endpointRequest({ ...options, endpoint: options.endpoint }, config, roleMap);
+    const pushDown = options.pushDown === true;
+    const loaded = await loadFromEndpoint(endpoint, pushDown);
+    const pushed = pushDown ? await pushDownRules(endpoint, config, activeRules(config)) : undefined;
+    return checkLoaded(loaded, options, startTime, pushed);
+  }
   const loaded = await loadSources(options.paths, {
     cwd,
     stdin: options.stdin,
     baseIri: options.baseIri,
     contexts: new Map(Object.entries(config.contexts)),
-    keepPredicates: predicatesTheGraphReads(buildRoleMap(config.presets, config.roles)),
+    keepPredicates: predicatesTheGraphReads(roleMap),
     fastLines: options.fastLines,
     onProgress: options.onProgress,
   });
   return checkLoaded(loaded, options, startTime);
 }
 
+/** What push-down on an endpoint found, handed to `checkLoaded` instead of running the rules here. */
+export interface PushedDownResults {
+  findings: Finding[];
+  failures: RuleFailure[];
+  errors: InputError[];
+}
+
+/** The rules a config switches on, with their levels. */
+function activeRules(config: IsapartConfig): { rule: RuleDefinition; level: Level }[] {
+  return readRules(config).rules.flatMap((rule) => {
+    const level = config.rules[rule.id] ?? rule.level;
+    return level === 'off' ? [] : [{ rule, level }];
+  });
+}
+
 /**
  * Runs the flow after loading on sources already read (the language server keeps one per document):
  * config, rules, graph, rules run, suppression. `options.paths` still locates the config file.
+ * With `pushed`, the rules already ran on an endpoint and their findings are used as they are.
  */
-export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions, startTime: Date = new Date()): CheckResult {
+export function checkLoaded(
+  loaded: LoadResultWithSkipped,
+  options: CheckOptions,
+  startTime: Date = new Date(),
+  pushed?: PushedDownResults,
+): CheckResult {
   const cwd = options.cwd ?? process.cwd();
   const inputErrors: InputError[] = [];
 
@@ -95,6 +125,7 @@ export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions
   // Role conflicts within the config file are reported by parseConfig at their lines.
   const roleMap = buildRoleMap(config.presets, config.roles);
 
+  const pushDown = pushed !== undefined;
   inputErrors.push(...loaded.errors);
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
@@ -110,17 +141,23 @@ export function checkLoaded(loaded: LoadResultWithSkipped, options: CheckOptions
     ...(graph.problems ?? []),
     ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
     ...nothingReadWarnings(loaded.sources),
-    ...unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] }),
+    // Push-down builds no graph here, so it cannot tell which settings match nothing.
+    ...(pushDown ? [] : unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] })),
   ];
   const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
   const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
-  const { findings: raw, failures } = runRules(graph, active);
+  if (pushed !== undefined) inputErrors.push(...pushed.errors);
+  const { findings: raw, failures } = pushed ?? runRules(graph, active);
 
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
   // An allow for a rule that is switched off has nothing to suppress, and is not worth a note either.
   const unusedShown = unused.filter((finding) => (config.rules[finding.focus] ?? '') !== 'off');
-  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unusedShown.map((f) => ({ ...f, level: unusedLevel }))];
+  // An endpoint that could not be read, or a rule that failed there, leaves allows unused for no fault of theirs.
+  const endpointFailed = options.endpoint !== undefined && (loaded.errors.length > 0 || (pushed?.errors.length ?? 0) > 0);
+  const failedRules = new Set(failures.map((failure) => failure.ruleId));
+  const unusedKept = endpointFailed ? [] : unusedShown.filter((finding) => !failedRules.has(finding.focus));
+  const findings = unusedLevel === 'off' ? suppressed : [...suppressed, ...unusedKept.map((f) => ({ ...f, level: unusedLevel }))];
 
   const context: ReportContext = {
     toolName: 'isapart',

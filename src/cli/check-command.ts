@@ -33,6 +33,21 @@ export interface CheckCommandOptions {
   since?: string;
   /** false for --no-progress. */
   progress?: boolean;
+  endpoint?: string;
+  graph?: string;
+  pushDown?: boolean;
+}
+
+/** Why the endpoint options cannot be used together with the paths given, or undefined when they can. */
+function endpointUsageProblem(paths: string[], options: CheckCommandOptions): string | undefined {
+  if (options.endpoint === undefined) {
+    if (options.pushDown === true) return '--push-down runs the rules on a SPARQL endpoint: give it with --endpoint URL';
+    if (options.graph !== undefined) return '--graph names a graph of a SPARQL endpoint: give the endpoint with --endpoint URL';
+    return undefined;
+  }
+  // Commander fills in '.' when no path is given.
+  if (paths.length !== 1 || paths[0] !== '.') return `--endpoint reads from the endpoint instead of files; leave out the paths (${paths.join(' ')}), or lint them in a separate run`;
+  return undefined;
 }
 
 const FORMATTERS = { text: toText, json: toJson, sarif: toSarif, html: toHtml, 'sparql-update': toSparqlUpdate } as const;
@@ -84,6 +99,11 @@ export async function runCheckCommand(
     terminal.err(`isapart: --base ${options.base}: not an absolute IRI: ${baseProblem}\n  hint: give the IRI the document's relative IRIs resolve against, such as https://data.northvale-rail.example/def/\n`);
     return 2;
   }
+  const endpointProblem = endpointUsageProblem(paths, options);
+  if (endpointProblem !== undefined) {
+    terminal.err(`isapart: ${endpointProblem}\n`);
+    return 2;
+  }
   const outputFile = options.output === undefined ? undefined : path.resolve(terminal.cwd, options.output);
   // Checked before linting, so a long run is not wasted on a report that cannot be written.
   const outputProblem = outputFile === undefined ? undefined : outputPathProblem(outputFile);
@@ -107,6 +127,10 @@ export async function runCheckCommand(
     color: colourAllowed(options, terminal),
     commandLine,
     onProgress: bar === undefined ? undefined : (progress) => bar.update(progress),
+    endpoint: options.endpoint,
+    graph: options.graph,
+    pushDown: options.pushDown,
+    env: terminal.env,
   };
   if (options.baseline !== undefined && options.since !== undefined) {
     terminal.err('isapart: --baseline and --since each give the baseline; use one of them\n');

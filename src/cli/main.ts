@@ -5,6 +5,7 @@ import { startLanguageServer } from '../lsp/server.js';
 import { toolVersion } from '../version.js';
 import { runCheckCommand, type CheckCommandOptions } from './check-command.js';
 import { runExplainCommand, runInitCommand, runRulesCommand } from './other-commands.js';
+import { runSparqlQueryCommand, type SparqlQueryCommandOptions } from './sparql-command.js';
 import type { Terminal } from './terminal.js';
 import { processTerminal } from './terminal.js';
 
@@ -22,6 +23,10 @@ Examples:
   $ isapart check data/ --since origin/main       fail only on findings this branch adds
   $ isapart check data/ --baseline before.json   compare with a saved -f json (or -f sarif) report
   $ isapart check data/ -f sparql-update -o fix.rq   a fix script: review it, run it on a copy first
+  $ isapart check --endpoint http://127.0.0.1:8890/sparql --graph https://data.northvale-rail.example/graph/assets
+                                                 read the hierarchy from a SPARQL 1.1 endpoint and lint it here
+  $ isapart check --endpoint http://127.0.0.1:8890/sparql --push-down
+                                                 run every rule as a SPARQL query on the endpoint itself
 
 Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the
 baseline); only new ones count for the exit code and the summary. --since needs the revision in the
@@ -34,7 +39,16 @@ Formats by extension: .ttl .trig .nt .nq, .rdf .owl (and .xml when named) as RDF
 each also as .gz. JSON-LD contexts are never fetched: map remote ones to files under contexts:.
 Suppress one finding with a comment at the end of the statement's line, or alone on the line above
 it:   # isapart-allow RULE-ID: reason      (RDF/XML: <!-- isapart-allow RULE-ID: reason -->)
-Config: the nearest isapart.yaml upward from the first path ('isapart init' writes a starter).`;
+Config: the nearest isapart.yaml upward from the first path ('isapart init' writes a starter).
+Endpoint settings go in its endpoint: section (page-size, timeout, retries, retry-delay, post: query|form,
+results: json|n-triples,
+authorization-env: the NAME of an environment variable holding the Authorization header value).`;
+
+const RULES_EXAMPLES = `
+Examples:
+  $ isapart rules                          the rules and their levels after config
+  $ isapart rules --sparql kind-and-part   the query push-down runs for one rule, to read or run yourself
+  $ isapart rules --sparql part-cycle --graph https://data.northvale-rail.example/graph/assets`;
 
 const PROGRAM_HELP = `
 Start:
@@ -100,6 +114,9 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
     .option('-q, --quiet', 'text output: only findings at or above --fail-on, and errors')
     .option('--no-progress', 'no progress bar while reading (it is drawn on standard error only when that is a terminal, and never in CI or with -q)')
+    .option('--endpoint <url>', 'read the hierarchy from a SPARQL 1.1 endpoint instead of files (paged SELECT queries)')
+    .option('--graph <iri>', 'with --endpoint: read this named graph (default: the endpoint\'s default graph)')
+    .option('--push-down', 'with --endpoint: run the rules as SPARQL queries on the endpoint instead of extracting')
     .addHelpText('after', CHECK_EXAMPLES)
     .action(async (paths: string[], options: CheckCommandOptions) => {
       setExit(await runCheckCommand(paths, options, terminal, commandLine));
@@ -111,8 +128,15 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .addOption(new Option('-f, --format <format>', 'output format').choices(['text', 'json', 'markdown']).default('text'))
     .option('-c, --config <file>', 'config file whose levels and rule-dirs apply (default: nearest isapart.yaml upward from here)')
     .option('--no-color', 'no colour in text output (also: NO_COLOR, or output not a terminal)')
-    .action(async (options: { format: 'text' | 'json' | 'markdown'; config?: string; color: boolean }) => {
-      setExit(await runRulesCommand(options, terminal));
+    .option('--sparql <rule-id>', "print the rule's SPARQL 1.1 push-down query, with the roles, scope and roots it was compiled for")
+    .option('--preset <names>', 'with --sparql: add role presets, as check does', collectList)
+    .option('--scope <prefix>', 'with --sparql: an in-scope IRI prefix, as check does (repeatable)', collect)
+    .option('--root <iri>', 'with --sparql: a configured root, as check does (repeatable)', collect)
+    .option('--graph <iri>', 'with --sparql: query this named graph (FROM) instead of the default graph')
+    .addHelpText('after', RULES_EXAMPLES)
+    .action(async (options: { format: 'text' | 'json' | 'markdown'; config?: string; color: boolean } & SparqlQueryCommandOptions & { sparql?: string }) => {
+      if (options.sparql !== undefined) setExit(await runSparqlQueryCommand(options.sparql, options, terminal));
+      else setExit(await runRulesCommand(options, terminal));
     });
 
   program

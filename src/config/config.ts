@@ -1,5 +1,6 @@
 // The settings of one run, as read from isapart.yaml and the command line.
 import type { RuleLevel } from '../engine/finding.js';
+import type { EndpointSettings } from '../load/endpoint-settings.js';
 import type { Role } from '../roles/role.js';
 
 /** Extra predicates for one role: those that point the role's way and those that point back. */
@@ -32,6 +33,8 @@ export interface IsapartConfig {
   allow: AllowEntry[];
   /** JSON-LD context IRI → absolute path of its local copy; no other remote context is read. */
   contexts: Record<string, string>;
+  /** The `endpoint:` settings that were written; defaults fill in the rest. */
+  endpoint?: Partial<EndpointSettings>;
 }
 
 /** The presets applied when a config names none. */

@@ -19,6 +19,7 @@ import {
   RULE_LEVELS,
   type RoleIriPositions,
 } from './config-sections.js';
+import { readEndpoint } from './endpoint-section.js';
 import { iriProblem } from './iri-check.js';
 import { suggestionHint } from './nearest.js';
 import { readContexts } from './contexts-section.js';
@@ -40,7 +41,7 @@ export const CONFIG_FILE_NAME = 'isapart.yaml';
 export const COMMAND_LINE_SOURCE = '<command line>';
 
 /** Every top-level key of isapart.yaml, in the order design.md lists them. */
-export const CONFIG_KEYS = ['presets', 'roles', 'scope', 'roots', 'rules', 'rule-dirs', 'allow', 'contexts'] as const;
+export const CONFIG_KEYS = ['presets', 'roles', 'scope', 'roots', 'rules', 'rule-dirs', 'allow', 'contexts', 'endpoint'] as const;
 
 /** A config together with the problems found while reading it (any problem makes the run exit 2). */
 export interface ConfigResult {
@@ -128,6 +129,7 @@ const KEY_READERS: Record<Exclude<(typeof CONFIG_KEYS)[number], 'roles'>, (conte
   'rule-dirs': readRuleDirs,
   allow: readAllow,
   contexts: readContexts,
+  endpoint: readEndpoint,
 };
 
 /** Reports predicates that the presets and `roles:` map two incompatible ways, at the `roles:` IRI. */

@@ -51,6 +51,15 @@ const STARTER_LINES = [
   '# local file is an input error naming the IRI. Paths are relative to this file.',
   '# Example: contexts: { "https://data.northvale-rail.example/context.jsonld": ./contexts/northvale.jsonld }',
   'contexts: {}',
+  '',
+  '# endpoint: how `isapart check --endpoint URL` talks to a SPARQL 1.1 endpoint: page-size (rows per',
+  '# request), timeout and retry-delay (seconds), retries (after a 5xx answer or a reset connection),',
+  '# post (query: the query as the POST body; form: as a form field, which Virtuoso 7.2 needs),',
+  '# results (json: SELECT pages as SPARQL JSON; n-triples: CONSTRUCT pages as N-Triples or Turtle), and',
+  '# authorization-env: the NAME of an environment variable holding the Authorization header value',
+  '# (the credentials themselves never go in this file).',
+  '# Example: endpoint: { page-size: 10000, timeout: 120, authorization-env: NORTHVALE_SPARQL_AUTH }',
+  'endpoint: {}',
 ];
 
 /** The text of a commented starter isapart.yaml; it parses with no errors. */

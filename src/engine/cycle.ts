@@ -88,7 +88,12 @@ export class CycleSource {
         firstTerm = term;
       }
     }
-    const walkNodes = shortestClosedWalk(first, this.successors(), (id) => componentOf[id] === index + 1);
+    // Successors are taken in term order, so the walk (and the finding's node order) depends only on
+    // the statements, never on the order they were read in (nor on an endpoint's row order).
+    const successors = this.successors();
+    const inComponent = (id: number): boolean => componentOf[id] === index + 1;
+    const termOrder = (id: number): number[] => Array.from(successors(id)).filter(inComponent).sort((left, right) => compareTerms(graph, left, right));
+    const walkNodes = shortestClosedWalk(first, termOrder, inComponent);
     if (walkNodes === undefined) throw new Error(`no closed walk through ${firstTerm} in its own component`);
     let rest: number[] = [];
     // A walk that leaves members out (two loops through one node) lists the others after it, by term.

@@ -1,13 +1,15 @@
 // Paths and URIs of input files as reports show them: relative to the folder the run started in.
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { isUrlLocation } from '../load/endpoint-location.js';
 import { STDIN_FILE } from '../load/parse.js';
 
 export { STDIN_FILE } from '../load/parse.js';
 
 /** A file's path relative to `cwd`, with forward slashes; stdin stays as the loader names it, a path on another root stays absolute. */
 export function relativePath(file: string, cwd: string): string {
-  if (file === STDIN_FILE) return file;
+  // An endpoint is named by its URL, which is no path.
+  if (file === STDIN_FILE || isUrlLocation(file)) return file;
   const absolute = path.resolve(cwd, file);
   const relative = path.relative(cwd, absolute);
   // On Windows a path on another drive has no relative form.
@@ -17,7 +19,7 @@ export function relativePath(file: string, cwd: string): string {
 
 /** Whether a path from `relativePath` is relative (and so resolves against the run's folder). */
 export function isRelativeShownPath(shown: string): boolean {
-  return shown !== STDIN_FILE && !path.isAbsolute(shown) && !/^[A-Za-z]:\//.test(shown);
+  return shown !== STDIN_FILE && !isUrlLocation(shown) && !path.isAbsolute(shown) && !/^[A-Za-z]:\//.test(shown);
 }
 
 /**
@@ -26,6 +28,7 @@ export function isRelativeShownPath(shown: string): boolean {
  */
 export function fileUri(file: string, cwd: string): string | undefined {
   if (file === STDIN_FILE) return undefined;
+  if (isUrlLocation(file)) return file;
   const shown = relativePath(file, cwd);
   if (!isRelativeShownPath(shown)) return pathToFileURL(path.resolve(cwd, file)).href;
   const reference = shown.split('/').map(encodePathSegment).join('/');

@@ -82,13 +82,13 @@ function fileSections(findings: Finding[], writer: TextWriter): string[][] {
 function findingLines(finding: Finding, writer: TextWriter): string[] {
   const lines = [`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`];
   for (const statement of finding.evidence) {
-    lines.push(`${DETAIL_INDENT}${writer.paint.dim(positionText(statement.position, writer.cwd))}  ${writer.terms.statement(statement)}`);
+    lines.push(`${DETAIL_INDENT}${evidenceWhere(statement.position, writer)}${writer.terms.statement(statement)}`);
   }
   if (finding.evidence.length === 0 && finding.location) {
     lines.push(`${DETAIL_INDENT}${writer.paint.dim(positionText(finding.location, writer.cwd))}`);
   }
   for (const statement of finding.fix?.remove ?? []) {
-    lines.push(`${DETAIL_INDENT}fix: remove ${writer.paint.dim(positionText(statement.position, writer.cwd))}  ${writer.terms.statement(statement)}`);
+    lines.push(`${DETAIL_INDENT}fix: remove ${evidenceWhere(statement.position, writer)}${writer.terms.statement(statement)}`);
   }
   return lines;
 }
@@ -139,6 +139,11 @@ function summaryLine(counts: FindingCounts, paint: ChalkInstance, withBaseline: 
   if (counts.ruleFailures > 0) parts.push(paint.red(plural(counts.ruleFailures, 'rule failure')));
   parts.push(`${plural(counts.files, 'file')} and ${plural(counts.statements, 'statement')} read`);
   return parts.join('; ');
+}
+
+/** An evidence statement's place before it; none for a statement without a line (from an endpoint), as the heading names its source. */
+function evidenceWhere(position: Position, writer: TextWriter): string {
+  return position.line < 1 ? '' : `${writer.paint.dim(positionText(position, writer.cwd))}  `;
 }
 
 function positionText(position: Position, cwd: string): string {

@@ -102,12 +102,12 @@ describe('parseConfig on valid configs', () => {
 describe('parseConfig errors', () => {
   it('an unknown key suggests the nearest known key', () => {
     expect(errorsOf('scope: []\nrule_dirs: [./team-rules]\n')).toEqual([
-      '2:1 unknown key `rule_dirs` | did you mean `rule-dirs`? (known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts)',
+      '2:1 unknown key `rule_dirs` | did you mean `rule-dirs`? (known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts, endpoint)',
     ]);
   });
 
   it('an unknown key far from all keys lists the known keys', () => {
-    expect(errorsOf('baseline: old.json\n')).toEqual(['1:1 unknown key `baseline` | known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts']);
+    expect(errorsOf('baseline: old.json\n')).toEqual(['1:1 unknown key `baseline` | known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts, endpoint']);
   });
 
   it('an unknown preset lists the known presets', () => {
@@ -188,7 +188,7 @@ describe('parseConfig errors', () => {
 
   it('a config that is not a mapping says what it must be', () => {
     expect(errorsOf('- rdfs\n- owl\n')).toEqual([
-      '1:1 the config must be a mapping of keys such as `presets:` and `scope:`, found a list | known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts',
+      '1:1 the config must be a mapping of keys such as `presets:` and `scope:`, found a list | known keys: presets, roles, scope, roots, rules, rule-dirs, allow, contexts, endpoint',
     ]);
   });
 

@@ -42,7 +42,7 @@ describe('cycle fingerprints', () => {
     expect(line).toBe(`part-cycle ${fingerprintOf('part-cycle', [`${NV}Axle`, `${NV}Bogie`, `${NV}Hub`])}`);
   });
 
-  it('do not change with statement order, though the walk does', async () => {
+  it('do not change with statement order, and neither does the walk the message follows', async () => {
     const reference = await fingerprints({ 'parts.ttl': TWO_LOOPS });
     const walks = new Set<string>();
     await fc.assert(
@@ -53,8 +53,9 @@ describe('cycle fingerprints', () => {
       }),
       { numRuns: 12, examples: [[TWO_LOOPS], [[...TWO_LOOPS.slice(2), ...TWO_LOOPS.slice(0, 2)]]] },
     );
-    // The two orders given as examples walk different loops first: the walk is not the identity.
-    expect(walks.size).toBeGreaterThan(1);
+    // The walk takes successors in term order (src/engine/cycle.ts), so every order gives one message,
+    // as an endpoint, which knows no statement order, must give it too.
+    expect(walks.size).toBe(1);
   });
 
   it('do not change with the member that is the focus (the first in scope)', async () => {
