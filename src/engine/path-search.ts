@@ -1,5 +1,6 @@
 // Breadth-first evaluation of a compiled path over (node, state) pairs, with scratch arrays reused between calls.
-import { cyclicComponents, stronglyConnected } from '../graph/scc.js';
+import { ReachLabels } from '../graph/reach-labels.js';
+import { cyclicComponents } from '../graph/scc.js';
 import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
 import { ROLES, type Role } from '../roles/role.js';
 import { BACKWARD, FORWARD, compileAutomaton, singleSteps, type PathAutomaton, type RoleStep } from './automaton.js';
@@ -16,8 +17,6 @@ const NO_PARENT = -1;
 const MAX_GENERATION = 0xffffffff;
 /** How many end nodes one search may keep memoised before its memo is dropped and refilled. */
 const MEMO_BUDGET = 1 << 20;
-/** How often `holds` must be asked about one end before its reachers are computed at once. */
-const REPEATED_END_ASKS = 4;
 
 /**
  * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
@@ -98,13 +97,18 @@ export class PathSearch {
   private readonly memo = new Map<number, Int32Array>();
   private memoSize = 0;
   private askedOnce: Uint8Array | undefined;
-  /** Per end node asked about more than once: the start nodes that reach it, ascending. */
+  /** Per end node whose forward searches grew costly: the start nodes that reach it, ascending. */
   private readonly reachersMemo = new Map<number, Int32Array>();
-  private askedAsEnd: Uint8Array | undefined;
+  /** Per end node: the pairs that forward searches towards it have visited so far. */
+  private workTowardEnd: Float64Array | undefined;
+  /** The pairs the last `run` put on its queue. */
+  private lastRunWork = 0;
   private cycleMembers: Uint8Array | undefined;
-  private componentRank: Int32Array | undefined;
+  private reachLabels: ReachLabels | undefined;
   /** The single steps of `X` when the path is `X+` with X a union of single steps (cycle shortcut). */
   private readonly plusSteps: RoleStep[] | undefined;
+  /** True when the path is `X+` or `X*` with X a union of single steps: between two different nodes it holds exactly when the steps connect them. */
+  private readonly closureOfSteps: boolean;
   /** The role and direction when the path is one step (`part-of`, `^part-of`): read straight from the adjacency. */
   private readonly onlyStep: RoleStep | undefined;
 
@@ -116,6 +120,7 @@ export class PathSearch {
   ) {
     this.forward = automaton ?? compileAutomaton(path);
     this.plusSteps = path.type === 'modified' && path.modifier === '+' ? singleSteps(path.path) : undefined;
+    this.closureOfSteps = path.type === 'modified' && path.modifier !== '?' && singleSteps(path.path) !== undefined;
     const steps = singleSteps(path);
     this.onlyStep = steps?.length === 1 ? steps[0] : undefined;
   }
@@ -157,20 +162,26 @@ export class PathSearch {
     const memoised = this.memo.get(start);
     if (memoised !== undefined) return binarySearch(memoised, end);
     if (start !== end) {
-      const rank = this.ranks();
-      if (rank[start] < rank[end]) return false;
+      // Most questions on a large hierarchy are answered by the labels alone, without a search.
+      const labels = this.labels();
+      if (!labels.mayReach(start, end)) return false;
+      if (this.closureOfSteps && labels.surelyReaches(start, end)) return true;
     }
     const reachers = this.reachersMemo.get(end);
     if (reachers !== undefined) return binarySearch(reachers, start);
-    // An end asked about repeatedly (a rule's fixed class checked against many starts): one backward
-    // search answers every later start, where repeated forward searches would cost depth each.
-    if (this.countAskedAsEnd(end) >= REPEATED_END_ASKS) {
+    // An end whose forward searches have together visited as many pairs as the graph has nodes (a
+    // rule's fixed class checked against many starts on a deep chain): one backward search, which
+    // costs about that much once, answers every later start. Ends that the labels keep cheap never get here.
+    const work = (this.workTowardEnd ??= new Float64Array(this.graph.nodeCount));
+    if (work[end] >= this.graph.nodeCount) {
       const found = this.reverse().from(end);
       this.remember(end, found, this.reachersMemo);
       return binarySearch(found, start);
     }
-    // No full closure here: an early exit, with ranks pruning what cannot reach end, stays cheap on deep chains.
-    return this.run(start, false, (node) => node === end, end);
+    // No full closure here: an early exit, with the labels pruning what cannot reach end, stays cheap on deep chains.
+    const reached = this.run(start, false, (node) => node === end, end);
+    work[end] += this.lastRunWork;
+    return reached;
   }
 
   /** Whether the path leads from start to any node at all. */
@@ -235,11 +246,11 @@ export class PathSearch {
   }
 
   /**
-   * The strongly connected component of every node over the steps the path uses, in Tarjan's order
-   * (reverse topological): a walk from u can reach v only when rank[u] >= rank[v].
+   * Reachability labels over the steps the path uses (any role and direction of its automaton):
+   * a walk of the path from u can reach v only when those steps lead from u to v.
    */
-  private ranks(): Int32Array {
-    if (this.componentRank === undefined) {
+  private labels(): ReachLabels {
+    if (this.reachLabels === undefined) {
       const automaton = this.forward;
       const steps: RoleStep[] = [];
       for (let move = 0; move < automaton.transitionRole.length; move++) {
@@ -247,23 +258,23 @@ export class PathSearch {
         const direction = automaton.transitionDirection[move];
         if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
       }
-      this.componentRank = stronglyConnected(this.graph.nodeCount, stepSuccessors(this.graph, steps)).component;
+      this.reachLabels = new ReachLabels(this.graph.nodeCount, stepSuccessors(this.graph, steps));
     }
-    return this.componentRank;
+    return this.reachLabels;
   }
 
   /**
    * Breadth-first search from (start, 0); calls `action` per newly reached accepting node until it
-   * returns true. With a known `end`, nodes that cannot reach it (by component rank) are not entered.
+   * returns true. With a known `end`, nodes that cannot reach it (by the labels) are not entered.
    */
   private run(start: number, withParents: boolean, action: ReachAction, end = -1): boolean {
     const automaton = this.forward;
     const states = automaton.stateCount;
     const arena = this.arena;
     const graph = this.graph;
-    const rank = end >= 0 && start !== end ? this.ranks() : undefined;
-    const endRank = rank === undefined ? 0 : rank[end];
-    if (rank !== undefined && rank[start] < endRank) return false;
+    const labels = end >= 0 && start !== end ? this.labels() : undefined;
+    this.lastRunWork = 0;
+    if (labels !== undefined && !labels.mayReach(start, end)) return false;
     arena.begin(this.graph.nodeCount * states, withParents);
     const first = start * states;
     arena.visitPair(first);
@@ -283,7 +294,7 @@ export class PathSearch {
           automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
         for (let index = 0; index < neighbours.length; index++) {
           const neighbour = neighbours[index];
-          if (rank !== undefined && rank[neighbour] < endRank) continue;
+          if (labels !== undefined && !labels.mayReach(neighbour, end)) continue;
           const next = neighbour * states + target;
           if (!arena.visitPair(next)) continue;
           if (withParents) {
@@ -291,10 +302,14 @@ export class PathSearch {
             arena.parentMoves[next] = move;
           }
           arena.enqueue(tail++, next);
-          if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) return true;
+          if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) {
+            this.lastRunWork = tail;
+            return true;
+          }
         }
       }
     }
+    this.lastRunWork = tail;
     return false;
   }
 
@@ -304,13 +319,6 @@ export class PathSearch {
     const before = asked[start] === 1;
     asked[start] = 1;
     return before;
-  }
-
-  /** Counts (up to 255) how often an end was asked about, this time included. */
-  private countAskedAsEnd(end: number): number {
-    const asked = (this.askedAsEnd ??= new Uint8Array(this.graph.nodeCount));
-    if (asked[end] < 255) asked[end] += 1;
-    return asked[end];
   }
 
   /** Keeps a result in one of the two memos within the shared budget (both are dropped when it is spent). */
