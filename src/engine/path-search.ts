@@ -1,6 +1,6 @@
 // Breadth-first evaluation of a compiled path over (node, state) pairs, with scratch arrays reused between calls.
 import { ReachLabels } from '../graph/reach-labels.js';
-import { cyclicComponents } from '../graph/scc.js';
+import { cyclicComponents, stronglyConnected, type ComponentAssignment } from '../graph/scc.js';
 import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
 import { ROLES, type Role } from '../roles/role.js';
 import { BACKWARD, FORWARD, compileAutomaton, singleSteps, type PathAutomaton, type RoleStep } from './automaton.js';
@@ -17,6 +17,11 @@ const NO_PARENT = -1;
 const MAX_GENERATION = 0xffffffff;
 /** How many end nodes one search may keep memoised before its memo is dropped and refilled. */
 const MEMO_BUDGET = 1 << 20;
+/**
+ * Searches towards a known end must have visited this many pairs per graph node before the
+ * reachability labels are built: a few checks keep to the component rank, which costs one pass.
+ */
+const LABELS_AFTER_WORK_PER_NODE = 2;
 
 /**
  * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
@@ -104,7 +109,10 @@ export class PathSearch {
   /** The pairs the last `run` put on its queue. */
   private lastRunWork = 0;
   private cycleMembers: Uint8Array | undefined;
+  private stepComponents: ComponentAssignment | undefined;
   private reachLabels: ReachLabels | undefined;
+  /** The pairs visited so far by searches towards a known end (what the labels would have pruned). */
+  private searchWork = 0;
   /** The single steps of `X` when the path is `X+` with X a union of single steps (cycle shortcut). */
   private readonly plusSteps: RoleStep[] | undefined;
   /** True when the path is `X+` or `X*` with X a union of single steps: between two different nodes it holds exactly when the steps connect them. */
@@ -163,9 +171,14 @@ export class PathSearch {
     if (memoised !== undefined) return binarySearch(memoised, end);
     if (start !== end) {
       // Most questions on a large hierarchy are answered by the labels alone, without a search.
-      const labels = this.labels();
-      if (!labels.mayReach(start, end)) return false;
-      if (this.closureOfSteps && labels.surelyReaches(start, end)) return true;
+      const labels = this.labelsOnceEarned();
+      if (labels === undefined) {
+        const rank = this.components().component;
+        if (rank[start] < rank[end]) return false;
+      } else {
+        if (!labels.mayReach(start, end)) return false;
+        if (this.closureOfSteps && labels.surelyReaches(start, end)) return true;
+      }
     }
     const reachers = this.reachersMemo.get(end);
     if (reachers !== undefined) return binarySearch(reachers, start);
@@ -246,35 +259,50 @@ export class PathSearch {
   }
 
   /**
-   * Reachability labels over the steps the path uses (any role and direction of its automaton):
-   * a walk of the path from u can reach v only when those steps lead from u to v.
+   * The strongly connected components over the steps the path uses (any role and direction of its
+   * automaton), in Tarjan's order: a walk of the path from u can reach v only when those steps lead
+   * from u to v, so only when component[u] >= component[v].
    */
-  private labels(): ReachLabels {
-    if (this.reachLabels === undefined) {
-      const automaton = this.forward;
-      const steps: RoleStep[] = [];
-      for (let move = 0; move < automaton.transitionRole.length; move++) {
-        const role = ROLES[automaton.transitionRole[move]];
-        const direction = automaton.transitionDirection[move];
-        if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
-      }
-      this.reachLabels = new ReachLabels(this.graph.nodeCount, stepSuccessors(this.graph, steps));
+  private components(): ComponentAssignment {
+    this.stepComponents ??= stronglyConnected(this.graph.nodeCount, this.stepGraph());
+    return this.stepComponents;
+  }
+
+  /** The reachability labels of the same steps, once searches have cost more than building them would. */
+  private labelsOnceEarned(): ReachLabels | undefined {
+    if (this.reachLabels === undefined && this.searchWork >= LABELS_AFTER_WORK_PER_NODE * this.graph.nodeCount) {
+      this.reachLabels = new ReachLabels(this.graph.nodeCount, this.stepGraph(), this.components());
     }
     return this.reachLabels;
   }
 
+  /** The successor function of the union of every role and direction the path's automaton walks. */
+  private stepGraph(): (id: number) => Int32Array {
+    const automaton = this.forward;
+    const steps: RoleStep[] = [];
+    for (let move = 0; move < automaton.transitionRole.length; move++) {
+      const role = ROLES[automaton.transitionRole[move]];
+      const direction = automaton.transitionDirection[move];
+      if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
+    }
+    return stepSuccessors(this.graph, steps);
+  }
+
   /**
    * Breadth-first search from (start, 0); calls `action` per newly reached accepting node until it
-   * returns true. With a known `end`, nodes that cannot reach it (by the labels) are not entered.
+   * returns true. With a known `end`, nodes that cannot reach it (by the labels, or the component rank before them) are not entered.
    */
   private run(start: number, withParents: boolean, action: ReachAction, end = -1): boolean {
     const automaton = this.forward;
     const states = automaton.stateCount;
     const arena = this.arena;
     const graph = this.graph;
-    const labels = end >= 0 && start !== end ? this.labels() : undefined;
+    const towardEnd = end >= 0 && start !== end;
+    const labels = towardEnd ? this.labelsOnceEarned() : undefined;
+    const rank = towardEnd && labels === undefined ? this.components().component : undefined;
+    const endRank = rank === undefined ? 0 : rank[end];
     this.lastRunWork = 0;
-    if (labels !== undefined && !labels.mayReach(start, end)) return false;
+    if (labels !== undefined ? !labels.mayReach(start, end) : rank !== undefined && rank[start] < endRank) return false;
     arena.begin(this.graph.nodeCount * states, withParents);
     const first = start * states;
     arena.visitPair(first);
@@ -294,7 +322,7 @@ export class PathSearch {
           automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
         for (let index = 0; index < neighbours.length; index++) {
           const neighbour = neighbours[index];
-          if (labels !== undefined && !labels.mayReach(neighbour, end)) continue;
+          if (labels !== undefined ? !labels.mayReach(neighbour, end) : rank !== undefined && rank[neighbour] < endRank) continue;
           const next = neighbour * states + target;
           if (!arena.visitPair(next)) continue;
           if (withParents) {
@@ -303,14 +331,20 @@ export class PathSearch {
           }
           arena.enqueue(tail++, next);
           if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) {
-            this.lastRunWork = tail;
+            this.countWork(tail, towardEnd);
             return true;
           }
         }
       }
     }
-    this.lastRunWork = tail;
+    this.countWork(tail, towardEnd);
     return false;
+  }
+
+  /** Records the pairs one search visited, for the backward-search and labels decisions. */
+  private countWork(pairs: number, towardEnd: boolean): void {
+    this.lastRunWork = pairs;
+    if (towardEnd) this.searchWork += pairs;
   }
 
   /** Records that a start was asked about; true when it had been before. */
