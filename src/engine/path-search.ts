@@ -26,9 +26,11 @@ const LABELS_AFTER_WORK_PER_NODE = 2;
 /**
  * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
  * node, stamped with a generation number so nothing is cleared between searches; parents and the
- * queue for witnesses. Searches never interleave (each call finishes before the next starts).
+ * queue for witnesses; the strongly connected components of each union of steps some search used.
+ * Searches never interleave (each call finishes before the next starts).
  */
 export class SearchArena {
+  private readonly stepComponentsMemo = new Map<string, ComponentAssignment>();
   private pairMarks = new Uint32Array(0);
   private pairGeneration = 0;
   private nodeMarks: Uint32Array;
@@ -61,6 +63,26 @@ export class SearchArena {
     }
     this.pairGeneration++;
     this.nodeGeneration++;
+  }
+
+  /**
+   * The strongly connected components over a union of single steps, computed once per run; the same
+   * steps walked the other way have the same components, numbered in the opposite order.
+   */
+  stepComponents(graph: HierarchyGraph, steps: RoleStep[]): ComponentAssignment {
+    const key = stepsKey(steps);
+    let found = this.stepComponentsMemo.get(key);
+    if (found !== undefined) return found;
+    const flipped = steps.map(({ role, direction }) => ({ role, direction: direction === FORWARD ? BACKWARD : FORWARD }));
+    const mirror = this.stepComponentsMemo.get(stepsKey(flipped));
+    if (mirror !== undefined) {
+      const last = mirror.count - 1;
+      found = { component: mirror.component.map((index) => last - index), count: mirror.count };
+    } else {
+      found = stronglyConnected(graph.nodeCount, stepSuccessors(graph, steps));
+    }
+    this.stepComponentsMemo.set(key, found);
+    return found;
   }
 
   /** Marks a pair visited; false when it already was. */
@@ -249,8 +271,10 @@ export class PathSearch {
   private onCycle(node: number): boolean {
     if (this.cycleMembers === undefined) {
       const members = new Uint8Array(this.graph.nodeCount);
-      const successors = stepSuccessors(this.graph, this.plusSteps as RoleStep[]);
-      for (const component of cyclicComponents(this.graph.nodeCount, successors)) {
+      const steps = this.plusSteps as RoleStep[];
+      const successors = stepSuccessors(this.graph, steps);
+      const assignment = this.arena.stepComponents(this.graph, steps);
+      for (const component of cyclicComponents(this.graph.nodeCount, successors, undefined, assignment)) {
         for (const member of component) members[member] = 1;
       }
       this.cycleMembers = members;
@@ -264,20 +288,20 @@ export class PathSearch {
    * from u to v, so only when component[u] >= component[v].
    */
   private components(): ComponentAssignment {
-    this.stepComponents ??= stronglyConnected(this.graph.nodeCount, this.stepGraph());
+    this.stepComponents ??= this.arena.stepComponents(this.graph, this.pathSteps());
     return this.stepComponents;
   }
 
   /** The reachability labels of the same steps, once searches have cost more than building them would. */
   private labelsOnceEarned(): ReachLabels | undefined {
     if (this.reachLabels === undefined && this.searchWork >= LABELS_AFTER_WORK_PER_NODE * this.graph.nodeCount) {
-      this.reachLabels = new ReachLabels(this.graph.nodeCount, this.stepGraph(), this.components());
+      this.reachLabels = new ReachLabels(this.graph.nodeCount, stepSuccessors(this.graph, this.pathSteps()), this.components());
     }
     return this.reachLabels;
   }
 
-  /** The successor function of the union of every role and direction the path's automaton walks. */
-  private stepGraph(): (id: number) => Int32Array {
+  /** Every role and direction the path's automaton walks, once each. */
+  private pathSteps(): RoleStep[] {
     const automaton = this.forward;
     const steps: RoleStep[] = [];
     for (let move = 0; move < automaton.transitionRole.length; move++) {
@@ -285,7 +309,7 @@ export class PathSearch {
       const direction = automaton.transitionDirection[move];
       if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
     }
-    return stepSuccessors(this.graph, steps);
+    return steps;
   }
 
   /**
@@ -386,6 +410,14 @@ export function stepSuccessors(graph: HierarchyGraph, steps: RoleStep[]): (id: n
     }
     return merged;
   };
+}
+
+/** A key for a union of steps that does not depend on their order. */
+function stepsKey(steps: RoleStep[]): string {
+  return steps
+    .map(({ role, direction }) => `${role}:${direction}`)
+    .sort()
+    .join(' ');
 }
 
 function binarySearch(sorted: Int32Array, wanted: number): boolean {

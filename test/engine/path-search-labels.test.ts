@@ -2,6 +2,7 @@
 import { Graph, alg } from '@dagrejs/graphlib';
 import { describe, expect, it } from 'vitest';
 import { parseValidPath } from '../../src/engine/path.js';
+import { BACKWARD, FORWARD } from '../../src/engine/automaton.js';
 import { PathSearch, SearchArena } from '../../src/engine/path-search.js';
 import { NV, fixtureGraph } from './graph-fixture.js';
 
@@ -27,8 +28,8 @@ function generatedHierarchy() {
     for (const to of supers) subclass.push([id, to]);
     if (next(33) === 0) partOf.push([id, next(id)]);
   }
-  // Two 2-cycles, so some components have more than one member.
-  subclass.push([10, 500], [700, 1500]);
+  // Two planted 2-cycles, so two components have more than one member.
+  subclass.push([10, 500], [500, 10], [700, 1500], [1500, 700]);
   const instance: [number, number][] = [];
   for (let id = CLASSES; id < CLASSES + INDIVIDUALS; id++) instance.push([id, next(CLASSES)]);
   const edges = (pairs: [number, number][]) => ({ from: Int32Array.from(pairs, (pair) => pair[0]), to: Int32Array.from(pairs, (pair) => pair[1]) });
@@ -101,5 +102,25 @@ describe('path checks pruned by reachability labels', () => {
       expect(holding, text).toBeGreaterThan(0);
       expect(hasLabels(checked), text).toBe(true);
     }
+  });
+
+  it('shares one component assignment per union of steps, numbered backwards for the steps walked the other way', () => {
+    const arena = new SearchArena(graph.nodeCount);
+    const up = arena.stepComponents(graph, [{ role: 'subclass-of', direction: FORWARD }]);
+    const down = arena.stepComponents(graph, [{ role: 'subclass-of', direction: BACKWARD }]);
+    expect(arena.stepComponents(graph, [{ role: 'subclass-of', direction: FORWARD }])).toBe(up);
+    // Reference: @dagrejs/graphlib 4 alg.tarjan gives the partition; the planted 2-cycles are its only groups of two.
+    const reference = new Graph({ directed: true });
+    for (let id = 0; id < CLASSES; id++) reference.setNode(String(id));
+    for (const [from, to] of subclass) reference.setEdge(String(from), String(to));
+    const pairs = alg.tarjan(reference).filter((group) => group.length > 1).map((group) => group.map(Number).sort((a, b) => a - b));
+    expect(pairs.sort((a, b) => a[0] - b[0])).toEqual([[10, 500], [700, 1500]]);
+    expect(up.count).toBe(graph.nodeCount - 2);
+    expect(down.count).toBe(up.count);
+    expect(up.component[10]).toBe(up.component[500]);
+    expect(down.component[700]).toBe(down.component[1500]);
+    // Every edge goes from a higher or equal component to a lower one in its own walking direction.
+    const misordered = subclass.filter(([from, to]) => up.component[from] < up.component[to] || down.component[to] < down.component[from]);
+    expect(misordered).toEqual([]);
   });
 });
