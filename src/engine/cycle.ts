@@ -29,7 +29,7 @@ export class CycleSource {
   constructor(
     private readonly graph: HierarchyGraph,
     path: PathExpression,
-    arena: SearchArena,
+    private readonly arena: SearchArena,
   ) {
     const base = path.type === 'modified' && path.modifier === '+' ? path.path : path;
     this.steps = singleSteps(base);
@@ -59,7 +59,9 @@ export class CycleSource {
 
   private memberSets(): number[][] {
     if (this.components === undefined) {
-      const components = cyclicComponents(this.graph.nodeCount, this.successors());
+      // For single steps the run's shared components serve (a search of the same steps may have made them already).
+      const assignment = this.steps !== undefined ? this.arena.stepComponents(this.graph, this.steps) : undefined;
+      const components = cyclicComponents(this.graph.nodeCount, this.successors(), undefined, assignment);
       const componentOf = new Int32Array(this.graph.nodeCount);
       components.forEach((members, index) => {
         for (const member of members) componentOf[member] = index + 1;

@@ -1,5 +1,6 @@
 // Breadth-first evaluation of a compiled path over (node, state) pairs, with scratch arrays reused between calls.
-import { cyclicComponents, stronglyConnected } from '../graph/scc.js';
+import { ReachLabels } from '../graph/reach-labels.js';
+import { cyclicComponents, stronglyConnected, type ComponentAssignment } from '../graph/scc.js';
 import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
 import { ROLES, type Role } from '../roles/role.js';
 import { BACKWARD, FORWARD, compileAutomaton, singleSteps, type PathAutomaton, type RoleStep } from './automaton.js';
@@ -16,15 +17,20 @@ const NO_PARENT = -1;
 const MAX_GENERATION = 0xffffffff;
 /** How many end nodes one search may keep memoised before its memo is dropped and refilled. */
 const MEMO_BUDGET = 1 << 20;
-/** How often `holds` must be asked about one end before its reachers are computed at once. */
-const REPEATED_END_ASKS = 4;
+/**
+ * Searches towards a known end must have visited this many pairs per graph node before the
+ * reachability labels are built: a few checks keep to the component rank, which costs one pass.
+ */
+const LABELS_AFTER_WORK_PER_NODE = 2;
 
 /**
  * Scratch space shared by every path search of one run: visit marks per (node, state) pair and per
  * node, stamped with a generation number so nothing is cleared between searches; parents and the
- * queue for witnesses. Searches never interleave (each call finishes before the next starts).
+ * queue for witnesses; the strongly connected components of each union of steps some search used.
+ * Searches never interleave (each call finishes before the next starts).
  */
 export class SearchArena {
+  private readonly stepComponentsMemo = new Map<string, ComponentAssignment>();
   private pairMarks = new Uint32Array(0);
   private pairGeneration = 0;
   private nodeMarks: Uint32Array;
@@ -57,6 +63,26 @@ export class SearchArena {
     }
     this.pairGeneration++;
     this.nodeGeneration++;
+  }
+
+  /**
+   * The strongly connected components over a union of single steps, computed once per run; the same
+   * steps walked the other way have the same components, numbered in the opposite order.
+   */
+  stepComponents(graph: HierarchyGraph, steps: RoleStep[]): ComponentAssignment {
+    const key = stepsKey(steps);
+    let found = this.stepComponentsMemo.get(key);
+    if (found !== undefined) return found;
+    const flipped = steps.map(({ role, direction }) => ({ role, direction: direction === FORWARD ? BACKWARD : FORWARD }));
+    const mirror = this.stepComponentsMemo.get(stepsKey(flipped));
+    if (mirror !== undefined) {
+      const last = mirror.count - 1;
+      found = { component: mirror.component.map((index) => last - index), count: mirror.count };
+    } else {
+      found = stronglyConnected(graph.nodeCount, stepSuccessors(graph, steps));
+    }
+    this.stepComponentsMemo.set(key, found);
+    return found;
   }
 
   /** Marks a pair visited; false when it already was. */
@@ -98,13 +124,21 @@ export class PathSearch {
   private readonly memo = new Map<number, Int32Array>();
   private memoSize = 0;
   private askedOnce: Uint8Array | undefined;
-  /** Per end node asked about more than once: the start nodes that reach it, ascending. */
+  /** Per end node whose forward searches grew costly: the start nodes that reach it, ascending. */
   private readonly reachersMemo = new Map<number, Int32Array>();
-  private askedAsEnd: Uint8Array | undefined;
+  /** Per end node: the pairs that forward searches towards it have visited so far. */
+  private workTowardEnd: Float64Array | undefined;
+  /** The pairs the last `run` put on its queue. */
+  private lastRunWork = 0;
   private cycleMembers: Uint8Array | undefined;
-  private componentRank: Int32Array | undefined;
+  private stepComponents: ComponentAssignment | undefined;
+  private reachLabels: ReachLabels | undefined;
+  /** The pairs visited so far by searches towards a known end (what the labels would have pruned). */
+  private searchWork = 0;
   /** The single steps of `X` when the path is `X+` with X a union of single steps (cycle shortcut). */
   private readonly plusSteps: RoleStep[] | undefined;
+  /** True when the path is `X+` or `X*` with X a union of single steps: between two different nodes it holds exactly when the steps connect them. */
+  private readonly closureOfSteps: boolean;
   /** The role and direction when the path is one step (`part-of`, `^part-of`): read straight from the adjacency. */
   private readonly onlyStep: RoleStep | undefined;
 
@@ -116,6 +150,7 @@ export class PathSearch {
   ) {
     this.forward = automaton ?? compileAutomaton(path);
     this.plusSteps = path.type === 'modified' && path.modifier === '+' ? singleSteps(path.path) : undefined;
+    this.closureOfSteps = path.type === 'modified' && path.modifier !== '?' && singleSteps(path.path) !== undefined;
     const steps = singleSteps(path);
     this.onlyStep = steps?.length === 1 ? steps[0] : undefined;
   }
@@ -157,20 +192,31 @@ export class PathSearch {
     const memoised = this.memo.get(start);
     if (memoised !== undefined) return binarySearch(memoised, end);
     if (start !== end) {
-      const rank = this.ranks();
-      if (rank[start] < rank[end]) return false;
+      // Most questions on a large hierarchy are answered by the labels alone, without a search.
+      const labels = this.labelsOnceEarned();
+      if (labels === undefined) {
+        const rank = this.components().component;
+        if (rank[start] < rank[end]) return false;
+      } else {
+        if (!labels.mayReach(start, end)) return false;
+        if (this.closureOfSteps && labels.surelyReaches(start, end)) return true;
+      }
     }
     const reachers = this.reachersMemo.get(end);
     if (reachers !== undefined) return binarySearch(reachers, start);
-    // An end asked about repeatedly (a rule's fixed class checked against many starts): one backward
-    // search answers every later start, where repeated forward searches would cost depth each.
-    if (this.countAskedAsEnd(end) >= REPEATED_END_ASKS) {
+    // An end whose forward searches have together visited as many pairs as the graph has nodes (a
+    // rule's fixed class checked against many starts on a deep chain): one backward search, which
+    // costs about that much once, answers every later start. Ends that the labels keep cheap never get here.
+    const work = (this.workTowardEnd ??= new Float64Array(this.graph.nodeCount));
+    if (work[end] >= this.graph.nodeCount) {
       const found = this.reverse().from(end);
       this.remember(end, found, this.reachersMemo);
       return binarySearch(found, start);
     }
-    // No full closure here: an early exit, with ranks pruning what cannot reach end, stays cheap on deep chains.
-    return this.run(start, false, (node) => node === end, end);
+    // No full closure here: an early exit, with the labels pruning what cannot reach end, stays cheap on deep chains.
+    const reached = this.run(start, false, (node) => node === end, end);
+    work[end] += this.lastRunWork;
+    return reached;
   }
 
   /** Whether the path leads from start to any node at all. */
@@ -225,8 +271,10 @@ export class PathSearch {
   private onCycle(node: number): boolean {
     if (this.cycleMembers === undefined) {
       const members = new Uint8Array(this.graph.nodeCount);
-      const successors = stepSuccessors(this.graph, this.plusSteps as RoleStep[]);
-      for (const component of cyclicComponents(this.graph.nodeCount, successors)) {
+      const steps = this.plusSteps as RoleStep[];
+      const successors = stepSuccessors(this.graph, steps);
+      const assignment = this.arena.stepComponents(this.graph, steps);
+      for (const component of cyclicComponents(this.graph.nodeCount, successors, undefined, assignment)) {
         for (const member of component) members[member] = 1;
       }
       this.cycleMembers = members;
@@ -235,35 +283,50 @@ export class PathSearch {
   }
 
   /**
-   * The strongly connected component of every node over the steps the path uses, in Tarjan's order
-   * (reverse topological): a walk from u can reach v only when rank[u] >= rank[v].
+   * The strongly connected components over the steps the path uses (any role and direction of its
+   * automaton), in Tarjan's order: a walk of the path from u can reach v only when those steps lead
+   * from u to v, so only when component[u] >= component[v].
    */
-  private ranks(): Int32Array {
-    if (this.componentRank === undefined) {
-      const automaton = this.forward;
-      const steps: RoleStep[] = [];
-      for (let move = 0; move < automaton.transitionRole.length; move++) {
-        const role = ROLES[automaton.transitionRole[move]];
-        const direction = automaton.transitionDirection[move];
-        if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
-      }
-      this.componentRank = stronglyConnected(this.graph.nodeCount, stepSuccessors(this.graph, steps)).component;
+  private components(): ComponentAssignment {
+    this.stepComponents ??= this.arena.stepComponents(this.graph, this.pathSteps());
+    return this.stepComponents;
+  }
+
+  /** The reachability labels of the same steps, once searches have cost more than building them would. */
+  private labelsOnceEarned(): ReachLabels | undefined {
+    if (this.reachLabels === undefined && this.searchWork >= LABELS_AFTER_WORK_PER_NODE * this.graph.nodeCount) {
+      this.reachLabels = new ReachLabels(this.graph.nodeCount, stepSuccessors(this.graph, this.pathSteps()), this.components());
     }
-    return this.componentRank;
+    return this.reachLabels;
+  }
+
+  /** Every role and direction the path's automaton walks, once each. */
+  private pathSteps(): RoleStep[] {
+    const automaton = this.forward;
+    const steps: RoleStep[] = [];
+    for (let move = 0; move < automaton.transitionRole.length; move++) {
+      const role = ROLES[automaton.transitionRole[move]];
+      const direction = automaton.transitionDirection[move];
+      if (!steps.some((step) => step.role === role && step.direction === direction)) steps.push({ role, direction });
+    }
+    return steps;
   }
 
   /**
    * Breadth-first search from (start, 0); calls `action` per newly reached accepting node until it
-   * returns true. With a known `end`, nodes that cannot reach it (by component rank) are not entered.
+   * returns true. With a known `end`, nodes that cannot reach it (by the labels, or the component rank before them) are not entered.
    */
   private run(start: number, withParents: boolean, action: ReachAction, end = -1): boolean {
     const automaton = this.forward;
     const states = automaton.stateCount;
     const arena = this.arena;
     const graph = this.graph;
-    const rank = end >= 0 && start !== end ? this.ranks() : undefined;
+    const towardEnd = end >= 0 && start !== end;
+    const labels = towardEnd ? this.labelsOnceEarned() : undefined;
+    const rank = towardEnd && labels === undefined ? this.components().component : undefined;
     const endRank = rank === undefined ? 0 : rank[end];
-    if (rank !== undefined && rank[start] < endRank) return false;
+    this.lastRunWork = 0;
+    if (labels !== undefined ? !labels.mayReach(start, end) : rank !== undefined && rank[start] < endRank) return false;
     arena.begin(this.graph.nodeCount * states, withParents);
     const first = start * states;
     arena.visitPair(first);
@@ -283,7 +346,7 @@ export class PathSearch {
           automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
         for (let index = 0; index < neighbours.length; index++) {
           const neighbour = neighbours[index];
-          if (rank !== undefined && rank[neighbour] < endRank) continue;
+          if (labels !== undefined ? !labels.mayReach(neighbour, end) : rank !== undefined && rank[neighbour] < endRank) continue;
           const next = neighbour * states + target;
           if (!arena.visitPair(next)) continue;
           if (withParents) {
@@ -291,11 +354,21 @@ export class PathSearch {
             arena.parentMoves[next] = move;
           }
           arena.enqueue(tail++, next);
-          if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) return true;
+          if (automaton.accepting[target] === 1 && arena.reachNode(neighbour) && action(neighbour, next)) {
+            this.countWork(tail, towardEnd);
+            return true;
+          }
         }
       }
     }
+    this.countWork(tail, towardEnd);
     return false;
+  }
+
+  /** Records the pairs one search visited, for the backward-search and labels decisions. */
+  private countWork(pairs: number, towardEnd: boolean): void {
+    this.lastRunWork = pairs;
+    if (towardEnd) this.searchWork += pairs;
   }
 
   /** Records that a start was asked about; true when it had been before. */
@@ -304,13 +377,6 @@ export class PathSearch {
     const before = asked[start] === 1;
     asked[start] = 1;
     return before;
-  }
-
-  /** Counts (up to 255) how often an end was asked about, this time included. */
-  private countAskedAsEnd(end: number): number {
-    const asked = (this.askedAsEnd ??= new Uint8Array(this.graph.nodeCount));
-    if (asked[end] < 255) asked[end] += 1;
-    return asked[end];
   }
 
   /** Keeps a result in one of the two memos within the shared budget (both are dropped when it is spent). */
@@ -344,6 +410,14 @@ export function stepSuccessors(graph: HierarchyGraph, steps: RoleStep[]): (id: n
     }
     return merged;
   };
+}
+
+/** A key for a union of steps that does not depend on their order. */
+function stepsKey(steps: RoleStep[]): string {
+  return steps
+    .map(({ role, direction }) => `${role}:${direction}`)
+    .sort()
+    .join(' ');
 }
 
 function binarySearch(sorted: Int32Array, wanted: number): boolean {

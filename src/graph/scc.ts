@@ -85,14 +85,16 @@ export function stronglyConnected(
 
 /**
  * The components that hold a cycle: more than one member, or one member with a self-loop.
- * Members ascending; components ordered by their smallest member.
+ * Members ascending; components ordered by their smallest member. `assignment` is the components
+ * of the same successors when already known.
  */
 export function cyclicComponents(
   nodeCount: number,
   successors: (id: number) => ArrayLike<number>,
   hasSelfLoop: (id: number) => boolean = (id) => includes(successors(id), id),
+  assignment?: ComponentAssignment,
 ): number[][] {
-  const { component, count } = stronglyConnected(nodeCount, successors);
+  const { component, count } = assignment ?? stronglyConnected(nodeCount, successors);
   const sizes = new Int32Array(count);
   for (let id = 0; id < nodeCount; id++) sizes[component[id]]++;
   const groups: (number[] | undefined)[] = new Array(count);
