@@ -89,6 +89,7 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
   const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
   const pushed = pushDown ? await pushDownRules(endpoint, config, active) : undefined;
   if (pushed !== undefined) inputErrors.push(...pushed.errors);
+  if (pushed !== undefined) inputWarnings.push(...pushed.warnings);
   const { findings: raw, failures } = pushed ?? runRules(graph, active);
 
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
