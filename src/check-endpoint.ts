@@ -51,7 +51,8 @@ export async function pushDownRules(
   if (endpointProblems(request.endpoint, request.graph).length > 0) return { findings: [], failures: [], errors: [], warnings: [] };
   const client = endpointClient(request);
   if (!('send' in client)) return { findings: [], failures: [], errors: [client], warnings: [] };
-  const runLocally = (rules: { rule: RuleDefinition; level: Level }[]) => runOnExtractedGraph(request, config, rules);
+  // `endpoint: { trust-server: true }` sends every query, whatever the server.
+  const runLocally = request.settings.trustServer === true ? undefined : (rules: { rule: RuleDefinition; level: Level }[]) => runOnExtractedGraph(request, config, rules);
   return runPushDown(
     { client, endpoint: request.endpoint, graph: request.graph, settings: request.settings, roleMap: request.roleMap, scope: config.scope, roots: config.roots, runLocally },
     active,

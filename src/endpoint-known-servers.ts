@@ -16,15 +16,15 @@ export interface KnownServer {
 
 /**
  * The table, one entry per server line. Virtuoso 7.x: measured on Debian's 7.2.5 (Server header
- * `Virtuoso/07.20.3229`), where the disjoint-overlap query gives no rows on the demo while oxigraph
- * and the in-memory engine give two findings (docs/push-down.md, "What Virtuoso 7.2.5 still answers wrongly").
+ * `Virtuoso/07.20.3229`), where the disjoint-overlap query misses and adds rows against oxigraph
+ * and the in-memory engine (docs/push-down.md, section "Seen on Virtuoso 7.2.5").
  */
 export const KNOWN_SERVERS: readonly KnownServer[] = Object.freeze([
   {
     name: 'Virtuoso 7.x',
     serverHeader: /^Virtuoso\/07\./i,
     wrongRules: ['disjoint-overlap'],
-    reason: 'it answers zero-or-more paths with both ends bound wrongly (rows are missing)',
+    reason: 'it answers the closures and filters of that query wrongly (rows missing and rows added, measured against oxigraph)',
     evidence: 'docs/push-down.md',
   },
 ]);

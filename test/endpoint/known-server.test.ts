@@ -94,6 +94,16 @@ describe('--push-down against a server named in the table', () => {
     expect(server.requests.slice(before).some((request) => request.query.includes('WHERE { ?s <'))).toBe(false);
   });
 
+  it('with `endpoint: { trust-server: true }` sends the query anyway and warns of nothing', async () => {
+    server.serverHeader = VIRTUOSO_HEADER;
+    const trusting = demoConfigFolder('endpoint: { page-size: 25, retry-delay: 0.01, trust-server: true }');
+    const before = server.requests.length;
+    const pushed = await check({ paths: [], cwd: trusting, configFile: `${trusting}/isapart.yaml`, endpoint: server.url, graph: DEMO_GRAPH, pushDown: true });
+    expect(pushed.context.inputErrors).toEqual([]);
+    expect(disjointRuleQueries(before).length).toBeGreaterThan(0);
+    expect(pushed.context.inputWarnings.filter((warning) => warning.message.includes('not pushed down'))).toEqual([]);
+  });
+
   it('with only the suspect rule active, asks the server once to learn which it is', async () => {
     server.serverHeader = VIRTUOSO_HEADER;
     const only = demoConfigFolder(
