@@ -81,8 +81,8 @@ function localRuleWarning(ruleId: string, server: KnownServer, serverHeader: str
     file,
     line: 0,
     column: 0,
-    message: `rule ${ruleId} was not pushed down: the endpoint is ${server.name} (Server: ${serverHeader}), and ${server.reason} for its query; it was evaluated here on the hierarchy statements extracted from the same endpoint`,
-    hint: `the measurements are in ${server.evidence}; the other rules ran on the endpoint`,
+    message: `rule ${ruleId} was not pushed down: the endpoint is ${server.name} (Server: ${serverHeader}), and ${server.reason}; it was evaluated here on the hierarchy statements extracted from the same endpoint`,
+    hint: `the measurements and the table of known servers are in ${server.evidence}; \`endpoint: { trust-server: true }\` sends the query anyway`,
   };
 }
 
