@@ -6,7 +6,9 @@ import { endpointClient, endpointProblems, loadEndpoint, type EndpointRequest } 
 import { DEFAULT_ENDPOINT_SETTINGS, type EndpointSettings } from './load/endpoint-settings.js';
 import type { InputError } from './load/statement.js';
 import type { LoadResultWithSkipped } from './load/sources.js';
-import { runPushDown } from './endpoint-push-down.js';
+import { runPushDown, type PushDownResult } from './endpoint-push-down.js';
+import { runRules } from './engine/run.js';
+import { buildHierarchyGraph } from './graph/build.js';
 import type { RoleMap } from './roles/role.js';
 
 /** The endpoint options of a run (a part of CheckOptions). */
@@ -45,12 +47,22 @@ export async function pushDownRules(
   request: EndpointRequest,
   config: IsapartConfig,
   active: { rule: RuleDefinition; level: Level }[],
-): Promise<{ findings: Finding[]; failures: RuleFailure[]; errors: InputError[] }> {
-  if (endpointProblems(request.endpoint, request.graph).length > 0) return { findings: [], failures: [], errors: [] };
+): Promise<{ findings: Finding[]; failures: RuleFailure[]; errors: InputError[]; warnings: InputError[] }> {
+  if (endpointProblems(request.endpoint, request.graph).length > 0) return { findings: [], failures: [], errors: [], warnings: [] };
   const client = endpointClient(request);
-  if (!('send' in client)) return { findings: [], failures: [], errors: [client] };
+  if (!('send' in client)) return { findings: [], failures: [], errors: [client], warnings: [] };
+  // `endpoint: { trust-server: true }` sends every query, whatever the server.
+  const runLocally = request.settings.trustServer === true ? undefined : (rules: { rule: RuleDefinition; level: Level }[]) => runOnExtractedGraph(request, config, rules);
   return runPushDown(
-    { client, endpoint: request.endpoint, graph: request.graph, settings: request.settings, roleMap: request.roleMap, scope: config.scope, roots: config.roots },
+    { client, endpoint: request.endpoint, graph: request.graph, settings: request.settings, roleMap: request.roleMap, scope: config.scope, roots: config.roots, runLocally },
     active,
   );
+}
+
+/** Runs rules in memory on the hierarchy statements extracted from the endpoint (the predicates the graph reads). */
+async function runOnExtractedGraph(request: EndpointRequest, config: IsapartConfig, rules: { rule: RuleDefinition; level: Level }[]): Promise<PushDownResult> {
+  const read = await loadEndpoint(request);
+  if (read.errors.length > 0) return { findings: [], failures: [], errors: read.errors, warnings: [] };
+  const graph = buildHierarchyGraph(read.sources, request.roleMap, { prefixes: config.scope, roots: config.roots });
+  return { ...runRules(graph, rules), errors: [], warnings: [] };
 }

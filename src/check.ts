@@ -147,6 +147,7 @@ export function checkLoaded(
   const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
   const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
   if (pushed !== undefined) inputErrors.push(...pushed.errors);
+  if (pushed !== undefined) inputWarnings.push(...pushed.warnings);
   const { findings: raw, failures } = pushed ?? runRules(graph, active);
 
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;

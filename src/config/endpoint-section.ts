@@ -6,7 +6,7 @@ import { suggestionHint } from './nearest.js';
 import { blameNode, describeNode, mappingEntries, reportAt, stringValue, type MappingEntry, type YamlReadContext } from './yaml-nodes.js';
 
 /** The keys of `endpoint:`, as users write them. */
-export const ENDPOINT_KEYS = ['page-size', 'timeout', 'retries', 'retry-delay', 'authorization-env', 'post', 'results'] as const;
+export const ENDPOINT_KEYS = ['page-size', 'timeout', 'retries', 'retry-delay', 'authorization-env', 'post', 'results', 'trust-server'] as const;
 
 /** An environment variable name as POSIX shells accept it (common practice). */
 const VARIABLE_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
@@ -23,7 +23,7 @@ function readNumber(context: YamlReadContext, entry: MappingEntry, bounds: { min
 }
 
 /**
- * `endpoint: { page-size, timeout, retries, retry-delay, authorization-env, post, results }`. The
+ * `endpoint: { page-size, timeout, retries, retry-delay, authorization-env, post, results, trust-server }`. The
  * credentials are never in the file: `authorization-env` names the environment variable that
  * holds the Authorization header's value.
  */
@@ -76,6 +76,15 @@ export function readEndpoint(context: YamlReadContext, entry: MappingEntry, conf
           reportAt(context, blameNode(field), `\`endpoint: results\` must be \`json\` or \`n-triples\`, found ${describeNode(field.value)}`, 'json: SELECT pages as SPARQL JSON results; n-triples: CONSTRUCT pages as N-Triples or Turtle');
         } else {
           settings.results = form;
+        }
+        break;
+      }
+      case 'trust-server': {
+        const value = isScalar(field.value) ? field.value.value : undefined;
+        if (typeof value !== 'boolean') {
+          reportAt(context, blameNode(field), `\`endpoint: trust-server\` must be true or false, found ${describeNode(field.value)}`, 'true: with --push-down, send every rule\'s query even to a server known to answer some of them wrongly (docs/push-down.md)');
+        } else {
+          settings.trustServer = value;
         }
         break;
       }

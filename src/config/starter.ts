@@ -57,7 +57,8 @@ const STARTER_LINES = [
   '# post (query: the query as the POST body; form: as a form field, which Virtuoso 7.2 needs),',
   '# results (json: SELECT pages as SPARQL JSON; n-triples: CONSTRUCT pages as N-Triples or Turtle), and',
   '# authorization-env: the NAME of an environment variable holding the Authorization header value',
-  '# (the credentials themselves never go in this file).',
+  '# (the credentials themselves never go in this file). trust-server: true makes --push-down send every',
+  '# rule\'s query even to a server known to answer some wrongly (docs/push-down.md lists them).',
   '# Example: endpoint: { page-size: 10000, timeout: 120, authorization-env: NORTHVALE_SPARQL_AUTH }',
   'endpoint: {}',
 ];

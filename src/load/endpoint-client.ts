@@ -55,6 +55,8 @@ interface AttemptFailure {
 export class SparqlClient {
   /** Requests sent, retries included (for the summary and the tests). */
   requests = 0;
+  /** The Server header of the last successful answer, when the server sent one. */
+  serverHeader?: string;
   private readonly sleep: (milliseconds: number) => Promise<void>;
 
   constructor(private readonly options: ClientOptions) {
@@ -97,6 +99,7 @@ export class SparqlClient {
       const text = await response.text();
       const contentType = (response.headers.get('content-type') ?? '').split(';')[0].trim().toLowerCase();
       if (!response.ok) return this.statusFailure(response, serverMessage(text, contentType === 'text/html'), purpose);
+      this.serverHeader = response.headers.get('server') ?? undefined;
       return { contentType, body: text, headers: response.headers };
     } catch (error) {
       return this.connectionFailure(error, purpose);

@@ -22,6 +22,8 @@ export interface EndpointSettings {
   post: QueryPost;
   /** `json`: SELECT pages read as SPARQL 1.1 Query Results JSON; `n-triples`: CONSTRUCT pages read with n3. */
   results: PageResults;
+  /** With `--push-down`, send every rule's query even to a server known to answer some wrongly (src/endpoint-known-servers.ts). */
+  trustServer?: boolean;
 }
 
 /** The settings when isapart.yaml has no `endpoint:` section. */

@@ -7,11 +7,11 @@ import { DEFAULT_ENDPOINT_SETTINGS } from '../../src/load/endpoint-settings.js';
 describe('endpoint: in isapart.yaml', () => {
   it('reads every key over the defaults', () => {
     const { config, errors } = parseConfig(
-      'endpoint:\n  page-size: 500\n  timeout: 30\n  retries: 0\n  retry-delay: 0.25\n  authorization-env: NV_SPARQL_AUTH\n  post: form\n  results: n-triples\n',
+      'endpoint:\n  page-size: 500\n  timeout: 30\n  retries: 0\n  retry-delay: 0.25\n  authorization-env: NV_SPARQL_AUTH\n  post: form\n  results: n-triples\n  trust-server: true\n',
       'isapart.yaml',
     );
     expect(errors).toEqual([]);
-    expect(endpointSettings(config)).toEqual({ pageSize: 500, timeoutSeconds: 30, retries: 0, retryDelaySeconds: 0.25, authorizationEnv: 'NV_SPARQL_AUTH', post: 'form', results: 'n-triples' });
+    expect(endpointSettings(config)).toEqual({ pageSize: 500, timeoutSeconds: 30, retries: 0, retryDelaySeconds: 0.25, authorizationEnv: 'NV_SPARQL_AUTH', post: 'form', results: 'n-triples', trustServer: true });
   });
 
   it('keeps the defaults without the section', () => {
@@ -28,6 +28,7 @@ describe('endpoint: in isapart.yaml', () => {
     ['endpoint:\n  authorization-env: Bearer abc123\n', 2, '`endpoint: authorization-env` must name an environment variable'],
     ['endpoint:\n  page-sise: 100\n', 2, 'unknown key `page-sise` in `endpoint`'],
     ['endpoint:\n  results: xml\n', 2, '`endpoint: results` must be `json` or `n-triples`, found the text `xml`'],
+    ['endpoint:\n  trust-server: yes please\n', 2, '`endpoint: trust-server` must be true or false, found the text `yes please`'],
     ['endpoint: fast\n', 1, '`endpoint` must be a mapping of settings, found the text `fast`'],
   ])('refuses %j at line %i', (text, line, message) => {
     const { errors } = parseConfig(text, 'isapart.yaml');

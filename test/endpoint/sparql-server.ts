@@ -26,6 +26,8 @@ export interface TestSparqlServer {
   fault: (index: number, request: SeenRequest) => Fault | undefined;
   /** Caps every answer at this many rows, as some servers do silently (sending X-SPARQL-MaxRows). */
   maxRows?: number;
+  /** A Server header sent with every answer, to stand for a particular server product. */
+  serverHeader?: string;
   close(): Promise<void>;
 }
 
@@ -68,7 +70,7 @@ export async function startSparqlServer(store: oxigraph.Store = new oxigraph.Sto
     if (/^(\s*#[^\n]*\n)*\s*CONSTRUCT\b/i.test(seen.query)) {
       try {
         const triples = store.query(seen.query, { results_format: 'application/n-triples' }) as string;
-        response.writeHead(200, { 'Content-Type': 'application/n-triples' }).end(triples);
+        response.writeHead(200, { 'Content-Type': 'application/n-triples', ...(server.serverHeader === undefined ? {} : { Server: server.serverHeader }) }).end(triples);
       } catch (error) {
         response.writeHead(400, { 'Content-Type': 'text/plain' }).end(`query refused: ${String(error)}`);
       }
@@ -82,6 +84,7 @@ export async function startSparqlServer(store: oxigraph.Store = new oxigraph.Sto
       return;
     }
     const headers: Record<string, string> = { 'Content-Type': 'application/sparql-results+json' };
+    if (server.serverHeader !== undefined) headers.Server = server.serverHeader;
     if (server.maxRows !== undefined) {
       const parsed = JSON.parse(json) as { results: { bindings: unknown[] } };
       if (parsed.results.bindings.length > server.maxRows) {
