@@ -92,6 +92,8 @@ export interface PushedDownResults {
   findings: Finding[];
   failures: RuleFailure[];
   errors: InputError[];
+  /** Rules evaluated here instead, on a server known to answer their queries wrongly. */
+  warnings: InputError[];
 }
 
 /** The rules a config switches on, with their levels. */
