@@ -17,14 +17,16 @@ export interface KnownServer {
 /**
  * The table, one entry per server line. Virtuoso 7.x: measured on Debian's 7.2.5 (Server header
  * `Virtuoso/07.20.3229`), where the disjoint-overlap query misses and adds rows against oxigraph
- * and the in-memory engine (docs/push-down.md, section "Seen on Virtuoso 7.2.5").
+ * and the in-memory engine on every run, and the kind-and-part query on the demo added a row
+ * (fleet:cab-A101-1) in 2 of 6 runs of the system suite and not in the others (docs/push-down.md,
+ * section "Seen on Virtuoso 7.2.5").
  */
 export const KNOWN_SERVERS: readonly KnownServer[] = Object.freeze([
   {
     name: 'Virtuoso 7.x',
     serverHeader: /^Virtuoso\/07\./i,
-    wrongRules: ['disjoint-overlap'],
-    reason: 'it answers the closures and filters of that query wrongly (rows missing and rows added, measured against oxigraph)',
+    wrongRules: ['disjoint-overlap', 'kind-and-part'],
+    reason: 'it answers the closures and filters of that query wrongly, or differently from one run to the next (rows missing and rows added, measured against oxigraph)',
     evidence: 'docs/push-down.md',
   },
 ]);
