@@ -3,25 +3,10 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { Graph, alg } from '@dagrejs/graphlib';
 import { ReachLabels } from '../../src/graph/reach-labels.js';
+import { randomGraph, successorLists, type RandomGraph } from './random-graph.js';
 
-interface RandomGraph {
-  nodeCount: number;
-  edges: [number, number][];
-}
-
-const randomGraph: fc.Arbitrary<RandomGraph> = fc
-  .integer({ min: 1, max: 40 })
-  .chain((nodeCount) =>
-    fc.record({
-      nodeCount: fc.constant(nodeCount),
-      edges: fc.array(fc.tuple(fc.nat(nodeCount - 1), fc.nat(nodeCount - 1)), { maxLength: nodeCount * 3 }),
-    }),
-  );
-
-function adjacency({ nodeCount, edges }: RandomGraph): Int32Array[] {
-  const lists: number[][] = Array.from({ length: nodeCount }, () => []);
-  for (const [from, to] of edges) if (!lists[from].includes(to)) lists[from].push(to);
-  return lists.map((list) => Int32Array.from(list.sort((a, b) => a - b)));
+function adjacency(graph: RandomGraph): Int32Array[] {
+  return successorLists(graph).map((list) => Int32Array.from(list));
 }
 
 /** Per node, the set of nodes it reaches in zero or more steps, from graphlib's depth-first preorder. */

@@ -3,28 +3,10 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { Graph, alg } from '@dagrejs/graphlib';
 import { cyclicComponents, stronglyConnected } from '../../src/graph/scc.js';
-
-interface RandomGraph {
-  nodeCount: number;
-  edges: [number, number][];
-}
-
-const randomGraph: fc.Arbitrary<RandomGraph> = fc
-  .integer({ min: 1, max: 40 })
-  .chain((nodeCount) =>
-    fc.record({
-      nodeCount: fc.constant(nodeCount),
-      edges: fc.array(fc.tuple(fc.nat(nodeCount - 1), fc.nat(nodeCount - 1)), { maxLength: nodeCount * 3 }),
-    }),
-  );
+import { randomGraph, successorLists } from './random-graph.js';
 
 /** Sorted successor lists of a random graph. */
-function adjacency({ nodeCount, edges }: RandomGraph): number[][] {
-  const lists: number[][] = Array.from({ length: nodeCount }, () => []);
-  for (const [from, to] of edges) if (!lists[from].includes(to)) lists[from].push(to);
-  for (const list of lists) list.sort((a, b) => a - b);
-  return lists;
-}
+const adjacency = successorLists;
 
 /** A partition as a sorted list of sorted member lists, so two partitions compare with toEqual. */
 /** The same random graph as a graphlib directed graph, the reference implementation's input. */
