@@ -10,8 +10,8 @@ import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest
 import { textChunks } from '../../src/load/parse-any.js';
 import { parseJsonLd } from '../../src/load/jsonld.js';
 import { JsonPlaces } from '../../src/load/json-places.js';
-import type { LoadedSource } from '../../src/load/statement.js';
 import { temporaryTree } from './temp-tree.js';
+import { statementRows } from './statement-rows.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
 const RDFS = 'http://www.w3.org/2000/01/rdf-schema#';
@@ -37,17 +37,7 @@ const TEXT = [
   '',
 ].join('\n');
 
-/** Statements as [subject, predicate, object, line, column], names shortened for reading. */
-function rows(source: LoadedSource) {
-  const short = (text: string) => text.replace(NV, 'nv:').replace(RDFS, 'rdfs:').replace('http://www.w3.org/1999/02/22-rdf-syntax-ns#', 'rdf:');
-  return source.statements.map((statement) => [
-    short(statement.subject),
-    short(statement.predicate),
-    typeof statement.object === 'string' ? short(statement.object) : statement.object.value,
-    statement.position.line,
-    statement.position.column,
-  ]);
-}
+const rows = statementRows;
 
 describe('parseJsonLd places each statement at the node object that states it', () => {
   it('in @graph, with @id before or after the properties, nested, and through @reverse', async () => {

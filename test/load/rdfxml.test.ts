@@ -5,7 +5,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { blankNodeLabelPrefix } from '../../src/load/parse.js';
 import { textChunks } from '../../src/load/parse-any.js';
 import { parseRdfXml } from '../../src/load/rdfxml.js';
-import type { LoadedSource } from '../../src/load/statement.js';
+import { statementRows } from './statement-rows.js';
 
 const NV = 'https://data.northvale-rail.example/def/';
 const RDF_NS = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
@@ -45,17 +45,7 @@ function placeOf(needle: string, fromLine = 1): { line: number; column: number }
   throw new Error(`${needle} is not in the document`);
 }
 
-/** Statements as [subject, predicate, object, line, column], names shortened for reading. */
-function rows(source: LoadedSource) {
-  const short = (text: string) => text.replace(NV, 'nv:').replace(RDF_NS, 'rdf:').replace(RDFS, 'rdfs:');
-  return source.statements.map((statement) => [
-    short(statement.subject),
-    short(statement.predicate),
-    typeof statement.object === 'string' ? short(statement.object) : statement.object.value,
-    statement.position.line,
-    statement.position.column,
-  ]);
-}
+const rows = statementRows;
 
 describe('parseRdfXml places each statement at the element that states it', () => {
   it('a node element its type, a property element its value, a collection item its list links', async () => {
