@@ -64,7 +64,6 @@ export class ReachLabels {
   private label(labelling: number, start: Int32Array, targets: Int32Array): void {
     const count = this.componentCount;
     const offset = labelling * count;
-    const { post, low, subtreeStart } = this;
     const visited = new Uint8Array(count);
     const frameComponent = new Int32Array(count);
     const frameNext = new Int32Array(count);
@@ -105,15 +104,7 @@ export class ReachLabels {
           top++;
           continue;
         }
-        const number = nextNumber++;
-        let lowest = number;
-        for (let edge = start[current]; edge < start[current + 1]; edge++) {
-          const childLow = low[offset + targets[edge]];
-          if (childLow < lowest) lowest = childLow;
-        }
-        post[offset + current] = number;
-        low[offset + current] = lowest;
-        subtreeStart[offset + current] = frameFirst[frame];
+        this.close(offset, start, targets, current, nextNumber++, frameFirst[frame]);
         top--;
       }
     }
@@ -124,21 +115,29 @@ export class ReachLabels {
   /** Numbers the components a random-root traversal left out, each after all it reaches (Tarjan's order is topological). */
   private labelRest(labelling: number, start: Int32Array, targets: Int32Array, visited: Uint8Array, firstNumber: number): void {
     const offset = labelling * this.componentCount;
-    const { post, low, subtreeStart } = this;
     let nextNumber = firstNumber;
     for (let current = 0; current < this.componentCount; current++) {
       if (visited[current] === 1) continue;
       visited[current] = 1;
       const number = nextNumber++;
-      let lowest = number;
-      for (let edge = start[current]; edge < start[current + 1]; edge++) {
-        const childLow = low[offset + targets[edge]];
-        if (childLow < lowest) lowest = childLow;
-      }
-      post[offset + current] = number;
-      low[offset + current] = lowest;
-      subtreeStart[offset + current] = number;
+      this.close(offset, start, targets, current, number, number);
     }
+  }
+
+  /**
+   * Gives a component whose successors are all numbered its post-order number, the lowest number
+   * it reaches (its own or a successor's lowest), and the first number of its depth-first subtree.
+   */
+  private close(offset: number, start: Int32Array, targets: Int32Array, current: number, number: number, firstInSubtree: number): void {
+    const { post, low, subtreeStart } = this;
+    let lowest = number;
+    for (let edge = start[current]; edge < start[current + 1]; edge++) {
+      const childLow = low[offset + targets[edge]];
+      if (childLow < lowest) lowest = childLow;
+    }
+    post[offset + current] = number;
+    low[offset + current] = lowest;
+    subtreeStart[offset + current] = firstInSubtree;
   }
 }
 
