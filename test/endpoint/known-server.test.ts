@@ -2,13 +2,13 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { check } from '../../src/check.js';
 import { KNOWN_SERVERS, knownServer, ruleNamedByTable } from '../../src/endpoint-known-servers.js';
+import { OWL_DISJOINT_WITH } from '../../src/roles/vocabulary.js';
 import { runCli } from '../cli/terminal-fake.js';
 import { comparableFindings, DEMO, DEMO_GRAPH, demoConfigFolder, demoStore } from './endpoint-fixtures.js';
 import { startSparqlServer, type TestSparqlServer } from './sparql-server.js';
 
 /** The Server header Debian's Virtuoso 7.2.5 sends (as seen by the system test, test/system/endpoint.test.ts). */
 const VIRTUOSO_HEADER = 'Virtuoso/07.20.3229 (Linux) x86_64-pc-linux-gnu';
-const OWL_DISJOINT_WITH = 'http://www.w3.org/2002/07/owl#disjointWith';
 
 let server: TestSparqlServer;
 let folder: string;
