@@ -7,6 +7,7 @@ import type { LineColumn } from './line-counter.js';
 import { JsonPlaces, type JsonKey } from './json-places.js';
 import { addQuad, prefixedBlankNodeFactory } from './rdfjs-terms.js';
 import { LocalContextLoader, type ContextMap } from './jsonld-contexts.js';
+import { StatementList } from './statement-sink.js';
 
 /** Options of `parseJsonLd`: those of every parser, and where remote contexts have local copies. */
 export interface JsonLdParseOptions extends ParseOptions {
@@ -161,6 +162,8 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
   const source: LoadedSource = { file, format: 'json-ld', statements: [], errors: [], allowComments: [], prefixes: {} };
   const cwd = options.cwd ?? process.cwd();
   const places = new JsonPlaces();
+  const list = options.sink === undefined ? new StatementList(file) : undefined;
+  const sink = options.sink ?? (list as StatementList);
   const loader = new LocalContextLoader(options.contexts ?? new Map());
   let failure: Failure | undefined;
   const droppedKeys = new Set<string>();
@@ -173,7 +176,7 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
     places,
     {
       quad: (quad, place) => {
-        if (failure === undefined) addQuad(source, quad, { line: place.line, column: place.column, objectLine: place.line });
+        if (failure === undefined) addQuad(source, sink, quad, { line: place.line, column: place.column, objectLine: place.line });
       },
       droppedKey: (key, place) => {
         const seen = `${key} ${place.line} ${place.column}`;
@@ -211,17 +214,19 @@ export async function parseJsonLd(chunks: AsyncIterable<string>, file: string, o
     if (syntax !== undefined) failure ??= { message: `JSON syntax error: ${syntax.message}`, hint: syntax.hint, place: syntax.place };
     if (failure !== undefined) break;
   }
-  if (failure === undefined && carried !== '') {
+  const brokenOff = options.brokenOff?.() === true;
+  if (failure === undefined && carried !== '' && !brokenOff) {
     const syntax = places.read(carried);
     if (syntax === undefined) await write(carried);
     else failure = { message: `JSON syntax error: ${syntax.message}`, hint: syntax.hint, place: syntax.place };
   }
-  if (failure === undefined) {
+  if (failure === undefined && !brokenOff) {
     const ending = places.end();
     if (ending !== undefined) failure = { message: `JSON syntax error: ${ending.message}`, hint: ending.hint, place: ending.place };
   }
   await parser.settled().catch(fail);
   if (failure !== undefined) source.errors.push(failureError(file, failure));
+  if (list !== undefined) source.statements = list.statements;
   return source;
 }
 

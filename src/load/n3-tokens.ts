@@ -1,5 +1,5 @@
-// The parts of n3 2.13.12 the loader relies on beyond its published typings: tokens and a synchronous lexer.
-import type { EventEmitter } from 'node:events';
+// The parts of n3 2.13.12 the loader relies on beyond its published typings: tokens, a synchronous lexer, chunked input.
+import { EventEmitter } from 'node:events';
 import { Lexer, Parser, type Token, type TokenCallback } from 'n3';
 import type * as RDF from '@rdfjs/types';
 import type { N3Format } from './statement.js';
@@ -52,6 +52,8 @@ export interface N3ParserOptions {
 
 interface LexerInternals {
   _tokenizeString(input: string, callback: (error: Error | null, token: N3Token) => void): void;
+  /** The text read but not yet lexed: undefined before the first chunk, null once the lexer stopped at an error. */
+  _input: string | null | undefined;
 }
 
 /**
@@ -80,9 +82,42 @@ export function createLexer(lineMode: boolean): SynchronousLexer {
   return new SynchronousLexer({ lineMode, n3: false, comments: true });
 }
 
-/** Runs n3's parser synchronously over a whole string with token callbacks. */
-export function parseWithTokens(text: string, options: N3ParserOptions, callbacks: N3ParseCallbacks): void {
+/** Text handed to n3's parser chunk by chunk; each chunk is lexed and parsed before `write` returns. */
+export interface N3ChunkFeed {
+  /** Lexes and parses the next chunk as far as it goes; a token cut at its end waits for the next chunk. */
+  write(text: string): void;
+  /** Says the text has ended, so the last token and statement are finished (or found incomplete). */
+  end(): void;
+  /** The text the lexer holds unread (the start of an unfinished token), '' when none, or null after a syntax error. */
+  unread(): string | null;
+}
+
+/**
+ * Starts n3's parser on a text that will come in chunks. n3's lexer takes a stream as an event
+ * emitter of `data` and `end`: it keeps the unread tail of each chunk and goes on with the next one,
+ * synchronously within the event, so the callbacks have run for every complete token when `write`
+ * returns. `unread` reads the lexer's private `_input` (n3 is pinned to 2.13.12 exactly).
+ */
+export function startChunkedParse(options: N3ParserOptions, callbacks: N3ParseCallbacks): N3ChunkFeed {
   const parser = new Parser(options as unknown as ConstructorParameters<typeof Parser>[0]);
-  const parse = parser.parse as unknown as (input: string, callbacks: N3ParseCallbacks) => void;
-  parse.call(parser, text, callbacks);
+  const parse = parser.parse as unknown as (input: EventEmitter, callbacks: N3ParseCallbacks) => void;
+  const input = new EventEmitter();
+  parse.call(parser, input, callbacks);
+  const lexer = options.lexer as unknown as Partial<LexerInternals>;
+  return {
+    write: (text) => {
+      if (text !== '') input.emit('data', text);
+    },
+    end: () => {
+      input.emit('end');
+    },
+    unread: () => (lexer._input === undefined ? '' : lexer._input),
+  };
+}
+
+/** Runs n3's parser synchronously over a whole string with token callbacks, as one chunk. */
+export function parseWithTokens(text: string, options: N3ParserOptions, callbacks: N3ParseCallbacks): void {
+  const feed = startChunkedParse(options, callbacks);
+  feed.write(text);
+  feed.end();
 }

@@ -1,13 +1,13 @@
 // Choosing the parser for a source's syntax: n3 for Turtle, TriG, N-Triples and N-Quads, the streaming parsers for RDF/XML and JSON-LD.
 import type { LoadedSource, RdfFormat } from './statement.js';
-import { parseSource } from './parse.js';
+import { N3SourceReader } from './parse.js';
 import { parseRdfXml } from './rdfxml.js';
 import { parseJsonLd, type JsonLdParseOptions } from './jsonld.js';
 
 /** Options of `parseAnySource`: the base IRI, the run folder and JSON-LD's local contexts. */
 export type SourceParseOptions = JsonLdParseOptions;
 
-/** Parses one source, given as text chunks, with the parser of its syntax. */
+/** Parses one source, given as text chunks, with the parser of its syntax; every parser reads the chunks as they come. */
 export async function parseAnySource(
   chunks: AsyncIterable<string>,
   file: string,
@@ -16,10 +16,12 @@ export async function parseAnySource(
 ): Promise<LoadedSource> {
   if (format === 'rdf-xml') return parseRdfXml(chunks, file, options);
   if (format === 'json-ld') return parseJsonLd(chunks, file, options);
-  // n3's parser is given the whole text: its tokens carry the positions the statements keep.
-  let text = '';
-  for await (const chunk of chunks) text += chunk;
-  return parseSource(text, file, format, options);
+  const reader = new N3SourceReader(file, format, options);
+  for await (const chunk of chunks) {
+    // After a syntax error n3 reads no more; the rest is still drained, so a broken stream is still told apart.
+    if (!reader.stopped) reader.write(chunk);
+  }
+  return options.brokenOff?.() === true ? reader.stop() : reader.end();
 }
 
 /** A whole text as the chunks the streaming parsers take. */

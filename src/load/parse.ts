@@ -1,16 +1,17 @@
-// Parsing one source text with n3 into statements that know the line and column of their subject.
+// Parsing Turtle, TriG, N-Triples and N-Quads with n3, chunk by chunk, into statements that know the line and column of their subject.
 import { createHash } from 'node:crypto';
 import { relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type * as RDF from '@rdfjs/types';
-import { Literal as N3Literal } from 'n3';
-import type { InputError, Literal, LoadedSource, N3Format, Statement } from './statement.js';
-import { createLexer, N3_FORMAT_NAME, parseWithTokens, type N3Token } from './n3-tokens.js';
+import type { InputError, LoadedSource, N3Format } from './statement.js';
+import { createLexer, N3_FORMAT_NAME, startChunkedParse, type N3ChunkFeed, type N3Token } from './n3-tokens.js';
+import { StatementList, type StatementSink } from './statement-sink.js';
+import { LineWindow } from './line-window.js';
 import { TermPositions } from './term-positions.js';
 import { formatName, toInputError } from './syntax-error.js';
 import { readAllowComment } from './allow-comments.js';
 
-/** Options of `parseSource`. */
+/** Options of `parseSource` and `N3SourceReader`. */
 export interface ParseOptions {
   /** The IRI relative IRIs resolve against; default the file's `file://` URL. */
   baseIri?: string;
@@ -20,67 +21,142 @@ export interface ParseOptions {
   blankNodePrefix?: string;
   /** Whether the text is one line of a larger source whose other lines are read anyway (changes error messages). */
   singleLine?: boolean;
+  /** Where the statements go as they are read; default a list returned as the source's `statements`. */
+  sink?: StatementSink;
+  /**
+   * For the parsers that take an iterable of chunks: asked once the chunks have ended, whether the
+   * input broke off (a failed read, a bad byte). Then the end of the chunks is not the end of the
+   * document, and an unfinished statement or element there is not reported as a syntax error.
+   */
+  brokenOff?: () => boolean;
 }
 
 /** The file name the loader gives standard input. */
 export const STDIN_FILE = '<stdin>';
 
 /**
- * Parses one source synchronously. On a syntax error it keeps every statement read before it and
- * records one InputError, since n3 cannot resume after an error.
+ * Parses one source held whole, synchronously: the text is given to an `N3SourceReader` as one
+ * chunk. On a syntax error it keeps every statement read before it and records one InputError,
+ * since n3 cannot resume after an error.
  */
 export function parseSource(text: string, file: string, format: N3Format, options: ParseOptions = {}): LoadedSource {
-  const source: LoadedSource = { file, format, statements: [], errors: [], allowComments: [], prefixes: {} };
-  const input = text.startsWith('\ufeff') ? text.slice(1) : text;
-  const cwd = options.cwd ?? process.cwd();
-  const labelPrefix = options.blankNodePrefix ?? blankNodeLabelPrefix(file, cwd);
-  const positions = new TermPositions(labelPrefix);
-  const pendingQuads: RDF.Quad[] = [];
-  let lastCodeLine = 0;
+  const reader = new N3SourceReader(file, format, options);
+  reader.write(text);
+  return reader.end();
+}
+
+/**
+ * Reads one Turtle, TriG, N-Triples or N-Quads source given in text chunks with n3, and follows
+ * its tokens (`onToken`/`onTokenEnd`) to give every statement the line and column of its subject
+ * and the line of its object. Statements go to the sink as soon as the token that completes them
+ * is read; of the text, only the lines the lexer has not finished with are kept, for the message
+ * of a syntax error. Where a chunk ends makes no difference to what is read.
+ */
+export class N3SourceReader {
+  private readonly source: LoadedSource;
+  private readonly sink: StatementSink;
+  private readonly list: StatementList | undefined;
+  private readonly positions: TermPositions;
+  private readonly pendingQuads: RDF.Quad[] = [];
+  private readonly window = new LineWindow();
+  private readonly feed: N3ChunkFeed;
+  private lastCodeLine = 0;
+  private atStart = true;
+
+  constructor(file: string, format: N3Format, options: ParseOptions = {}) {
+    this.source = { file, format, statements: [], errors: [], allowComments: [], prefixes: {} };
+    this.list = options.sink === undefined ? new StatementList(file) : undefined;
+    this.sink = options.sink ?? (this.list as StatementList);
+    const cwd = options.cwd ?? process.cwd();
+    const labelPrefix = options.blankNodePrefix ?? blankNodeLabelPrefix(file, cwd);
+    this.positions = new TermPositions(labelPrefix);
+    const textOfLine = (line: number): string => this.window.textOfLine(line);
+    this.feed = startChunkedParse(
+      {
+        format: N3_FORMAT_NAME[format],
+        baseIRI: options.baseIri ?? defaultBaseIri(file, cwd),
+        blankNodePrefix: labelPrefix,
+        factory: this.positions.factory,
+        lexer: createLexer(format === 'n-triples' || format === 'n-quads'),
+      },
+      {
+        onQuad: (error, quad) => {
+          if (error) this.source.errors.push(toInputError({ file, format, textOfLine, error, singleLine: options.singleLine }));
+          else if (quad) this.pendingQuads.push(quad);
+        },
+        onPrefix: (prefix, namespace) => {
+          this.source.prefixes[prefix] = namespace.value;
+        },
+        onToken: (token) => {
+          if (token.type === 'comment') this.readComment(token);
+          else this.positions.beginToken(token);
+        },
+        onTokenEnd: (token) => {
+          if (token.type === 'comment') return;
+          this.positions.endToken(token);
+          this.lastCodeLine = token.endLine ?? token.line;
+          this.flushPending();
+        },
+      },
+    );
+  }
+
+  /** Whether n3 has stopped at a syntax error, so later chunks would not be read. */
+  get stopped(): boolean {
+    return this.feed.unread() === null;
+  }
+
+  /** Reads the next chunk of the text as far as it goes. */
+  write(chunk: string): void {
+    let text = chunk;
+    // One byte order mark at the start is dropped here (the text's first character, however the chunks fall).
+    if (this.atStart && text !== '') {
+      this.atStart = false;
+      if (text.startsWith('\ufeff')) text = text.slice(1);
+    }
+    if (text === '') return;
+    this.window.append(text);
+    this.feed.write(text);
+    const unread = this.feed.unread();
+    if (unread !== null) this.window.dropBefore(unread.length);
+  }
+
+  /** Ends the text, finishing its last statement, and returns the source (its `statements` only when no sink was given). */
+  end(): LoadedSource {
+    this.feed.end();
+    return this.stop();
+  }
+
+  /** Returns the source as read so far, without ending the text: for input that broke off, whose cut is no syntax error. */
+  stop(): LoadedSource {
+    this.flushPending();
+    if (this.list !== undefined) this.source.statements = this.list.statements;
+    return this.source;
+  }
 
   // Statements wait until their token is fully read, when every term's place is settled.
-  const flushPending = (): void => {
-    for (const quad of pendingQuads) addStatement(source, quad, positions);
-    pendingQuads.length = 0;
-  };
-  const readComment = (token: N3Token): void => {
-    const site = { file, line: token.line, column: token.start + 1, ownLine: lastCodeLine !== token.line };
-    const reading = readAllowComment(token.value, site);
-    if (reading.kind === 'allow') source.allowComments.push(reading.comment);
-    else if (reading.kind === 'malformed') source.errors.push(reading.error);
-  };
+  private flushPending(): void {
+    for (const quad of this.pendingQuads) this.addStatement(quad);
+    this.pendingQuads.length = 0;
+  }
 
-  parseWithTokens(
-    input,
-    {
-      format: N3_FORMAT_NAME[format],
-      baseIRI: options.baseIri ?? defaultBaseIri(file, cwd),
-      blankNodePrefix: labelPrefix,
-      factory: positions.factory,
-      lexer: createLexer(format === 'n-triples' || format === 'n-quads'),
-    },
-    {
-      onQuad: (error, quad) => {
-        if (error) source.errors.push(toInputError({ file, format, text: input, error, singleLine: options.singleLine }));
-        else if (quad) pendingQuads.push(quad);
-      },
-      onPrefix: (prefix, namespace) => {
-        source.prefixes[prefix] = namespace.value;
-      },
-      onToken: (token) => {
-        if (token.type === 'comment') readComment(token);
-        else positions.beginToken(token);
-      },
-      onTokenEnd: (token) => {
-        if (token.type === 'comment') return;
-        positions.endToken(token);
-        lastCodeLine = token.endLine ?? token.line;
-        flushPending();
-      },
-    },
-  );
-  flushPending();
-  return source;
+  private readComment(token: N3Token): void {
+    const site = { file: this.source.file, line: token.line, column: token.start + 1, ownLine: this.lastCodeLine !== token.line };
+    const reading = readAllowComment(token.value, site);
+    if (reading.kind === 'allow') this.source.allowComments.push(reading.comment);
+    else if (reading.kind === 'malformed') this.source.errors.push(reading.error);
+  }
+
+  /** Hands one n3 quad to the sink, or records an InputError when it holds a term isapart cannot keep. */
+  private addStatement(quad: RDF.Quad): void {
+    const { subject, object } = quad;
+    const { positions } = this;
+    if (subject.termType === 'Quad' || object.termType === 'Quad') {
+      this.source.errors.push(tripleTermError(this.source, positions.lineOf(subject), positions.columnOf(subject)));
+      return;
+    }
+    this.sink.add(quad, positions.lineOf(subject), positions.columnOf(subject), positions.lineOf(object));
+  }
 }
 
 /**
@@ -102,37 +178,6 @@ export function defaultBaseIri(file: string, cwd: string = process.cwd()): strin
 /** A file's path relative to `cwd`, `/`-separated. */
 function normalisedPath(file: string, cwd: string): string {
   return relative(cwd, resolve(cwd, file)).split(sep).join('/');
-}
-
-/** Turns one n3 quad into a Statement, or into an InputError when it holds a term isapart cannot keep. */
-function addStatement(source: LoadedSource, quad: RDF.Quad, positions: TermPositions): void {
-  const { subject, object } = quad;
-  const line = positions.lineOf(subject);
-  const column = positions.columnOf(subject);
-  if (subject.termType === 'Quad' || object.termType === 'Quad') {
-    source.errors.push(tripleTermError(source, line, column));
-    return;
-  }
-  const statement: Statement = {
-    subject: termText(subject),
-    predicate: quad.predicate.value,
-    object: object.termType === 'Literal' ? literalOf(object) : termText(object),
-    graph: quad.graph.termType === 'DefaultGraph' ? '' : termText(quad.graph),
-    position: { file: source.file, line, column },
-    objectLine: positions.lineOf(object),
-  };
-  source.statements.push(statement);
-}
-
-/** A literal's parts; n3's `datatypeString` gives the datatype IRI without making a term for it. */
-export function literalOf(literal: RDF.Literal): Literal {
-  const datatype = literal instanceof N3Literal ? literal.datatypeString : literal.datatype.value;
-  return { value: literal.value, datatype, language: literal.language };
-}
-
-/** An IRI as itself, a blank node as `_:label`. */
-export function termText(term: RDF.Term): string {
-  return term.termType === 'BlankNode' ? `_:${term.value}` : term.value;
 }
 
 function tripleTermError(source: LoadedSource, line: number, column: number): InputError {

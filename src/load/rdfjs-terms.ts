@@ -1,9 +1,9 @@
 // RDF/JS terms from the streaming parsers (RDF/XML, JSON-LD) turned into the loader's statements.
 import type * as RDF from '@rdfjs/types';
 import { DataFactory } from 'n3';
-import type { InputError, LoadedSource, Statement } from './statement.js';
+import type { InputError, LoadedSource } from './statement.js';
 import { formatName } from './syntax-error.js';
-import { literalOf, termText } from './parse.js';
+import type { StatementSink } from './statement-sink.js';
 
 /** Where a streaming parser's statement was stated, and the line its object was written on. */
 export interface StatementPlace {
@@ -30,22 +30,14 @@ export function prefixedBlankNodeFactory(labelPrefix: string): RDF.DataFactory {
   };
 }
 
-/** Adds one parsed quad to a source as a Statement, or as an InputError when it holds an RDF 1.2 triple term. */
-export function addQuad(source: LoadedSource, quad: RDF.BaseQuad, place: StatementPlace): void {
+/** Hands one parsed quad to the sink, or adds an InputError to the source when it holds an RDF 1.2 triple term. */
+export function addQuad(source: LoadedSource, sink: StatementSink, quad: RDF.BaseQuad, place: StatementPlace): void {
   const { subject, object, graph } = quad;
   if (subject.termType === 'Quad' || object.termType === 'Quad' || graph.termType === 'Quad') {
     source.errors.push(tripleTermError(source, place));
     return;
   }
-  const statement: Statement = {
-    subject: termText(subject),
-    predicate: quad.predicate.value,
-    object: object.termType === 'Literal' ? literalOf(object as RDF.Literal) : termText(object),
-    graph: graph.termType === 'DefaultGraph' ? '' : termText(graph),
-    position: { file: source.file, line: place.line, column: place.column },
-    objectLine: place.objectLine,
-  };
-  source.statements.push(statement);
+  sink.add(quad, place.line, place.column, place.objectLine);
 }
 
 function tripleTermError(source: LoadedSource, place: StatementPlace): InputError {

@@ -8,6 +8,7 @@ import { LineCounter, type LineColumn } from './line-counter.js';
 import { addQuad, prefixedBlankNodeFactory, type StatementPlace } from './rdfjs-terms.js';
 import { rdfXmlSyntaxError } from './rdfxml-errors.js';
 import { readAllowComment } from './allow-comments.js';
+import { StatementList } from './statement-sink.js';
 
 const RDF_NS = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
 
@@ -164,6 +165,8 @@ interface Failure {
 export async function parseRdfXml(chunks: AsyncIterable<string>, file: string, options: ParseOptions = {}): Promise<LoadedSource> {
   const source: LoadedSource = { file, format: 'rdf-xml', statements: [], errors: [], allowComments: [], prefixes: {} };
   const cwd = options.cwd ?? process.cwd();
+  const list = options.sink === undefined ? new StatementList(file) : undefined;
+  const sink = options.sink ?? (list as StatementList);
   let failure: Failure | undefined;
   const parser = new PlacedRdfXmlParser(
     {
@@ -173,7 +176,7 @@ export async function parseRdfXml(chunks: AsyncIterable<string>, file: string, o
     },
     {
       quad: (quad, place) => {
-        if (failure === undefined) addQuad(source, quad, place);
+        if (failure === undefined) addQuad(source, sink, quad, place);
       },
       comment: (text, place, ownLine) => {
         if (failure !== undefined) return;
@@ -201,7 +204,7 @@ export async function parseRdfXml(chunks: AsyncIterable<string>, file: string, o
     parser._transform(chunk, 'utf8', fail);
     if (failure !== undefined) break;
   }
-  if (failure === undefined) {
+  if (failure === undefined && options.brokenOff?.() !== true) {
     // An unclosed element or a missing root shows only when saxes is told the text has ended.
     try {
       parser.sax().close();
@@ -210,5 +213,6 @@ export async function parseRdfXml(chunks: AsyncIterable<string>, file: string, o
     }
   }
   if (failure !== undefined) source.errors.push(rdfXmlSyntaxError(file, failure.error, failure.place));
+  if (list !== undefined) source.statements = list.statements;
   return source;
 }

@@ -7,13 +7,13 @@ import { pathToFileURL } from 'node:url';
 import type { InputError, LoadResult, RdfFormat } from './statement.js';
 import { detectFormat, RDF_EXTENSIONS, SNIFF_LENGTH } from './format.js';
 import { blankNodeLabelPrefix, STDIN_FILE } from './parse.js';
-import { parseAnySource, textChunks } from './parse-any.js';
+import { parseAnySource } from './parse-any.js';
 import type { ContextMap } from './jsonld-contexts.js';
-import { decodeText } from './source-text.js';
+import { decodeText, invalidUtf8Error, Utf8ChunkDecoder, type InvalidUtf8 } from './source-text.js';
 import { sourceChunks, type LoadProgress, type ReadFailure } from './byte-source.js';
 import { LineReader } from './line-reader.js';
 import { StatementStore } from './statement-store.js';
-import { storeSource } from './stored-source.js';
+import { StoringSink } from './stored-source.js';
 import { joinShown, listRdfFiles } from './walk.js';
 
 /** Options of `loadSources`. */
@@ -170,9 +170,9 @@ interface StreamedSource {
 
 /**
  * Streams a source: works out its syntax from its name or its first chunks, then reads N-Triples and
- * N-Quads line by line as the chunks come. Turtle, TriG, RDF/XML and JSON-LD are gathered and
- * parsed as one text: the positions of Turtle and TriG statements come from n3's token callbacks on
- * a whole string, and the whole text is checked as UTF-8 first so that a bad byte has its line.
+ * N-Quads line by line as the chunks come. Turtle, TriG, RDF/XML and JSON-LD are decoded chunk by
+ * chunk (a bad UTF-8 byte ends the source with an error at its line, after what came before it)
+ * and parsed as the text comes, their statements stored as they are read.
  */
 async function readSource(source: StreamedSource, result: LoadResultWithSkipped, reading: RunReading): Promise<void> {
   const progress: LoadProgress = { file: source.file, bytesRead: 0, totalBytes: source.totalBytes, lines: 0 };
@@ -236,34 +236,40 @@ async function readSource(source: StreamedSource, result: LoadResultWithSkipped,
     return;
   }
 
-  const gathered: Buffer[] = [];
-  for await (const chunk of rest) {
-    gathered.push(chunk);
-    progress.lines += countNewlines(chunk);
-    report();
-  }
-  if (streamed.failure !== undefined) {
-    result.errors.push(failureError(source.file, streamed.failure, streamed.gzip, undefined));
-    return;
-  }
-  const decoded = decodeText(Buffer.concat(gathered), source.file);
-  if ('error' in decoded) {
-    result.errors.push(decoded.error);
-    return;
-  }
-  const parsed = await parseAnySource(textChunks(decoded.text), source.file, format, {
+  // Every other syntax is decoded and parsed chunk by chunk; statements go to the store as they are read.
+  const decoder = new Utf8ChunkDecoder();
+  let invalid: InvalidUtf8 | undefined;
+  const texts = (async function* () {
+    for await (const chunk of rest) {
+      const decoded = decoder.write(chunk);
+      progress.lines = decoder.lineBreaks;
+      report();
+      if (decoded.text !== '') yield decoded.text;
+      invalid = decoded.invalid;
+      if (invalid !== undefined) return;
+    }
+    if (streamed.failure !== undefined) return;
+    const ending = decoder.end();
+    if (ending.text !== '') yield ending.text;
+    invalid = ending.invalid;
+  })();
+  const sink = new StoringSink(reading.store, reading.keep, source.file);
+  const parsed = await parseAnySource(texts, source.file, format, {
     baseIri: source.baseIri,
     cwd: source.cwd,
     contexts: reading.contexts,
+    sink,
+    brokenOff: () => invalid !== undefined || streamed.failure !== undefined,
   });
-  result.sources.push(storeSource(parsed, reading.store, reading.keep));
-}
-
-/** How many newline bytes a chunk holds. */
-function countNewlines(chunk: Buffer): number {
-  let count = 0;
-  for (let index = chunk.indexOf(10); index >= 0; index = chunk.indexOf(10, index + 1)) count++;
-  return count;
+  const loaded = sink.stored(parsed);
+  const linesRead = decoder.lineBreaks;
+  if (invalid !== undefined) {
+    const kept = loaded.statementCount === 0 ? 'it was not read' : 'the statements before it were read, the rest of the file was not';
+    loaded.errors.push(invalidUtf8Error(source.file, invalid, kept));
+  }
+  result.sources.push(loaded);
+  // A stream that broke off is an error beside what was read before it, never a silent short read.
+  if (streamed.failure !== undefined) result.errors.push(failureError(source.file, streamed.failure, streamed.gzip, linesRead));
 }
 
 /** The error for a source whose bytes stopped coming: a failed read, or gzip that cannot be inflated. */

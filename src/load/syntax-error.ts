@@ -6,7 +6,8 @@ import type { N3ErrorContext, N3Token } from './n3-tokens.js';
 export interface SyntaxErrorSite {
   file: string;
   format: N3Format;
-  text: string;
+  /** The text of a 1-based line of the source, without its line end: only the error's line is asked for. */
+  textOfLine: (line: number) => string;
   error: Error & { context?: N3ErrorContext };
   /** Whether the text is one line of a larger source whose other lines are still read. */
   singleLine?: boolean;
@@ -195,21 +196,9 @@ function unreadableText(description: string): string | undefined {
 function lexicalErrorColumn(site: SyntaxErrorSite, line: number, description: string): number {
   const issue = unreadableText(description);
   if (!issue) return 1;
-  const lineText = lineOf(site.text, line);
+  const lineText = site.textOfLine(line);
   const previous = site.error.context?.previousToken;
   const searchFrom = previous && (previous.endLine ?? previous.line) === line ? previous.end : 0;
   const index = lineText.indexOf(issue, searchFrom);
   return index < 0 ? 1 : index + 1;
-}
-
-/** The text of a 1-based line, without its line ending. */
-function lineOf(text: string, line: number): string {
-  let start = 0;
-  for (let current = 1; current < line; current++) {
-    const next = text.indexOf('\n', start);
-    if (next < 0) return '';
-    start = next + 1;
-  }
-  const end = text.indexOf('\n', start);
-  return text.slice(start, end < 0 ? text.length : end).replace(/\r$/, '');
 }

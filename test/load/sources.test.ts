@@ -159,11 +159,15 @@ describe('loadSources on files', () => {
 
   it('reports text that is not UTF-8 at the first bad byte', async () => {
     const result = await loadSources(['latin1.ttl'], { cwd: root });
-    expect(result.sources).toEqual([]);
+    expect(result.errors).toEqual([]);
+    expect(result.sources.map((source) => [source.file, source.statements.length])).toEqual([['latin1.ttl', 0]]);
+    const errors = result.sources[0].errors;
+    expect(errors).toHaveLength(1);
     // The line is '<NV>Car> <NV>label> "Wagen' then the byte e4: counted from the two IRIs' lengths.
     const column = `<${NV}Car> <${NV}label> "Wagen`.length + 1;
-    expect(result.errors[0]).toMatchObject({ file: 'latin1.ttl', line: 1, column });
-    expect(result.errors[0].hint).toContain('UTF-8');
+    expect(errors[0]).toMatchObject({ file: 'latin1.ttl', line: 1, column });
+    expect(errors[0].message).toContain('it was not read');
+    expect(errors[0].hint).toContain('UTF-8');
   });
 });
 
