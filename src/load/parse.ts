@@ -136,8 +136,11 @@ export class N3SourceReader {
 
   // Statements wait until their token is fully read, when every term's place is settled.
   private flushPending(): void {
-    for (const quad of this.pendingQuads) this.addStatement(quad);
-    this.pendingQuads.length = 0;
+    const pending = this.pendingQuads;
+    // Most tokens complete no statement; the array is left alone for them.
+    if (pending.length === 0) return;
+    for (const quad of pending) this.addStatement(quad);
+    pending.length = 0;
   }
 
   private readComment(token: N3Token): void {

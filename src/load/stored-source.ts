@@ -13,6 +13,8 @@ export class StoringSink implements StatementSink {
   private readonly start: number;
   private count = 0;
   private unkept = 0;
+  private lastSubject: RDF.Term | undefined;
+  private lastSubjectNumber = -1;
 
   constructor(
     private readonly store: StatementStore,
@@ -32,9 +34,14 @@ export class StoringSink implements StatementSink {
       if (quad.subject.termType === 'BlankNode') store.unkeptBlankSubjects.add(store.term(termText(quad.subject)));
       return;
     }
-    const { object, graph } = quad;
+    const { subject, object, graph } = quad;
+    // n3 hands the same subject term again for each statement of a `;` list, so its number is remembered.
+    if (subject !== this.lastSubject) {
+      this.lastSubject = subject;
+      this.lastSubjectNumber = store.term(termText(subject));
+    }
     store.addRow({
-      subject: store.term(termText(quad.subject)),
+      subject: this.lastSubjectNumber,
       predicate: store.predicate(predicate),
       object: object.termType === 'Literal' ? store.literal(literalOf(object as RDF.Literal)) : store.term(termText(object)),
       graph: graph.termType === 'DefaultGraph' ? DEFAULT_GRAPH : store.term(termText(graph)),

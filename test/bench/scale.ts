@@ -19,11 +19,12 @@ const GIB = 2 ** 30;
 /** The scope and root every run uses: the generator's namespace, and its class 0. */
 const SCOPE: BenchScope = { prefixes: [BENCH_NAMESPACE], roots: [classIri(0)] };
 
-type Measure = 'newline-scan' | 'n3-parse' | 'check' | 'oxigraph';
+type Measure = 'newline-scan' | 'n3-parse' | 'check' | 'check-other' | 'oxigraph';
 const MEASURE_NAMES: Record<Measure, string> = {
   'newline-scan': 'raw newline scan (fs chunks, count 0x0A)',
   'n3-parse': "n3's bare streaming parse (StreamParser, keep nothing)",
   check: 'isapart check (child process, JSON to a file)',
+  'check-other': 'isapart check of the --also-isapart build (same flags)',
   oxigraph: 'oxigraph 0.5.11: load into Store + 4 SPARQL queries',
 };
 
@@ -115,10 +116,10 @@ let lastStderr = '';
 
 /** Runs one measure once on one input. */
 async function measureOnce(measure: Measure, input: GeneratedInput, work: { folder: string; config: string; checkFlags: string[]; profileDir?: string }): Promise<Sample | string> {
-  if (measure === 'check') {
+  if (measure === 'check' || measure === 'check-other') {
     const output = path.join(work.folder, 'findings.json');
     const nodeOptions = work.profileDir ? ['--cpu-prof', '--cpu-prof-dir', work.profileDir] : [];
-    const args = [BIN, 'check', input.file, '-c', work.config, '--format', 'json', '-o', output, '--fail-on', 'never', ...work.checkFlags];
+    const args = [measure === 'check' ? BIN : (OTHER_BIN as string), 'check', input.file, '-c', work.config, '--format', 'json', '-o', output, '--fail-on', 'never', ...work.checkFlags];
     const result = await runNodeChild(args, ROOT, BOUNDS, nodeOptions);
     lastStderr = result.stderr;
     const failure = failureOf(result);
@@ -137,7 +138,7 @@ async function measureOnce(measure: Measure, input: GeneratedInput, work: { fold
 
 /** All measures on one input, alternating run by run; a measure that fails once is not run again. */
 async function measureInput(size: SizeSpec, input: GeneratedInput, work: { folder: string; config: string; checkFlags: string[] }, log: (line: string) => void): Promise<InputResult> {
-  const measures: Measure[] = ['newline-scan', 'n3-parse', 'check', 'oxigraph'];
+  const measures: Measure[] = ['newline-scan', 'n3-parse', 'check', ...(OTHER_BIN === undefined ? [] : ['check-other' as const]), 'oxigraph'];
   const result: InputResult = { size, input, samples: new Map(), failures: new Map(), startupMs: [], load: [loadavg()[0], 0] };
   for (let run = 0; run < size.runs; run += 1) {
     for (const measure of measures) {
@@ -190,8 +191,9 @@ function printInputTable(result: InputResult): void {
   const referenceCpu = medianCpuMs(result, reference);
   console.log(`| measure | runs | median ms | peak RSS MiB | ratio to ${reference} | ratio to check | median CPU ms | CPU ratio to ${reference} |`);
   console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
-  for (const measure of ['newline-scan', 'n3-parse', 'check', 'oxigraph'] as Measure[]) {
+  for (const measure of ['newline-scan', 'n3-parse', 'check', 'check-other', 'oxigraph'] as Measure[]) {
     if (measure === 'oxigraph' && size.oxigraphRuns === 0) continue;
+    if (measure === 'check-other' && OTHER_BIN === undefined) continue;
     const ms = medianMs(result, measure);
     if (ms === undefined) {
       console.log(`| ${MEASURE_NAMES[measure]} | 0 | — | — | — (${result.failures.get(measure) ?? 'not run'}) | — | — | — |`);
@@ -215,6 +217,8 @@ function printInputTable(result: InputResult): void {
   console.log(`statements read: ${statements.join(', ')}; check input errors: ${result.checkFindings?.inputErrors ?? '—'}`);
   const digests = new Set((result.samples.get('check') ?? []).map((sample) => sample.digest));
   if (digests.size > 0) console.log(`findings digest (rule, nodes, evidence lines): ${[...digests].join(', ')}${digests.size > 1 ? ' — runs differ' : ', the same in every run'}`);
+  const otherDigests = new Set((result.samples.get('check-other') ?? []).map((sample) => sample.digest));
+  if (otherDigests.size > 0) console.log(`findings digest of the --also-isapart build: ${[...otherDigests].join(', ')}${otherDigests.size === 1 && digests.size === 1 && [...otherDigests][0] === [...digests][0] ? ', the same as check' : ' — differs from check'}`);
   printCountsTable(result);
 }
 
@@ -303,16 +307,18 @@ const program = new Command('scale')
   .option('--runs <n>', 'runs per measure instead of the defaults (5 at 200k, 3 at 2M)', positiveInteger)
   .option('--oxigraph-runs <n>', 'at most n runs of the oxigraph measure per size (defaults: 5 at 200k, 1 at 2M); 0 skips it', (value) => (value === '0' ? 0 : positiveInteger(value)))
   .option('--isapart <file>', 'the isapart command to time, e.g. a build of an earlier commit', path.join(ROOT, 'bin', 'isapart.js'))
+  .option('--also-isapart <file>', 'a second isapart command (e.g. a build of an earlier commit) timed in the same runs, alternating with --isapart')
   .option('--profile', 'also profile one check of the first N-Triples size with node --cpu-prof')
   .option('--keep-inputs', 'keep the 2M file in the cache (it is deleted after its measures otherwise)')
   .addHelpText('after', `\nTables go to standard output as markdown (for test/bench/RESULTS.md), progress to standard error.\nA full run takes tens of minutes and needs about 2 GiB free in the temporary folder for the 2M file.\nGenerated inputs are cached in ${path.join('<tmpdir>', 'isapart-bench-cache')}, keyed by size and the generator's source.\nA child is stopped past ${BOUNDS.timeoutMs / 60_000} min or ${BOUNDS.maxRssBytes / GIB} GiB RSS and its cell marked.`);
 program.parse();
-const options = program.opts<{ isapart: string; sizes: string; runs?: number; oxigraphRuns?: number; profile?: boolean; keepInputs?: boolean }>();
+const options = program.opts<{ isapart: string; alsoIsapart?: string; sizes: string; runs?: number; oxigraphRuns?: number; profile?: boolean; keepInputs?: boolean }>();
 const wanted = options.sizes.split(',').map((key) => key.trim());
 const unknown = wanted.filter((key) => !SIZES.some((size) => size.key === key));
 if (unknown.length > 0) program.error(`unknown size ${unknown.join(', ')}; known: ${SIZES.map((size) => size.key).join(', ')}`);
 
 const BIN = path.resolve(options.isapart);
+const OTHER_BIN = options.alsoIsapart === undefined ? undefined : path.resolve(options.alsoIsapart);
 const log = (line: string): void => void process.stderr.write(`${line}\n`);
 const folder = mkdtempSync(path.join(cacheFolder(), 'run-'));
 const config = path.join(folder, 'isapart.yaml');
@@ -324,6 +330,7 @@ const work = { folder, config, checkFlags };
 
 const cpu = cpus();
 console.log(`machine: ${cpu.length} × ${cpu[0]?.model ?? 'unknown CPU'}, ${(totalmem() / GIB).toFixed(0)} GiB, Node ${process.version}`);
+if (OTHER_BIN !== undefined) console.log(`also timed: node ${OTHER_BIN} check, same flags`);
 console.log(`check: node ${path.relative(ROOT, BIN) || BIN} check FILE -c isapart.yaml --format json -o FILE --fail-on never ${checkFlags.join(' ')}`);
 console.log(`config: scope ${SCOPE.prefixes.join(', ')}; roots ${SCOPE.roots.join(', ')}`);
 const results: InputResult[] = [];
