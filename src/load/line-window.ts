@@ -2,7 +2,7 @@
 
 /**
  * Keeps the text from the start of the line where a lexer's unread text begins to the end of what
- * has been given, and that first line's number. Lines are counted at LF, as `textOfLine` splits
+ * has been given, and that first line's number. Lines end at LF, CRLF or a lone CR, as n3 counts
  * them; everything before the kept lines is dropped, so a long text is never held whole.
  */
 export class LineWindow {
@@ -17,12 +17,13 @@ export class LineWindow {
 
   /** Drops the lines before the one holding the last `unreadLength` characters given (the lexer's unread tail). */
   dropBefore(unreadLength: number): void {
-    const unreadStart = this.kept.length - unreadLength;
+    const kept = this.kept;
+    const unreadStart = kept.length - unreadLength;
     if (unreadStart <= 0) return;
-    const cut = this.kept.lastIndexOf('\n', unreadStart - 1) + 1;
+    const cut = lineStartBefore(kept, unreadStart);
     if (cut === 0) return;
-    for (let index = this.kept.indexOf('\n'); index >= 0 && index < cut; index = this.kept.indexOf('\n', index + 1)) this.firstLine++;
-    this.kept = this.kept.slice(cut);
+    this.firstLine += lineBreaksIn(kept, cut);
+    this.kept = kept.slice(cut);
   }
 
   /** The text of a 1-based line without its line end ('' when it is not kept, or past the text given). */
@@ -30,11 +31,38 @@ export class LineWindow {
     if (line < this.firstLine) return '';
     let start = 0;
     for (let current = this.firstLine; current < line; current++) {
-      const next = this.kept.indexOf('\n', start);
-      if (next < 0) return '';
-      start = next + 1;
+      const end = lineEnd(this.kept, start);
+      if (end === this.kept.length) return '';
+      start = end + (this.kept.charCodeAt(end) === 13 && this.kept.charCodeAt(end + 1) === 10 ? 2 : 1);
     }
-    const end = this.kept.indexOf('\n', start);
-    return this.kept.slice(start, end < 0 ? this.kept.length : end).replace(/\r$/, '');
+    return this.kept.slice(start, lineEnd(this.kept, start));
   }
+}
+
+/** Where the line holding `offset` starts: just after the last line break before it (0 when none). */
+function lineStartBefore(text: string, offset: number): number {
+  const lf = text.lastIndexOf('\n', offset - 1);
+  const cr = text.lastIndexOf('\r', offset - 1);
+  // A CR right before `offset` may be the first half of a CRLF whose LF is unread; its line is not over.
+  const crEnds = cr >= 0 && cr + 1 < offset;
+  return Math.max(lf + 1, crEnds ? cr + 1 : 0);
+}
+
+/** The number of line breaks (LF, CRLF, lone CR) that end before `end`. */
+function lineBreaksIn(text: string, end: number): number {
+  let count = 0;
+  for (let index = text.indexOf('\n'); index >= 0 && index < end; index = text.indexOf('\n', index + 1)) count++;
+  // Lone CRs are rare; only a text that has any CR is looked through for them.
+  for (let index = text.indexOf('\r'); index >= 0 && index < end; index = text.indexOf('\r', index + 1)) {
+    if (text.charCodeAt(index + 1) !== 10) count++;
+  }
+  return count;
+}
+
+/** The offset of the first line break at or after `start`, or the text's length. */
+function lineEnd(text: string, start: number): number {
+  const lf = text.indexOf('\n', start);
+  const cr = text.indexOf('\r', start);
+  const first = lf < 0 ? cr : cr < 0 ? lf : Math.min(lf, cr);
+  return first < 0 ? text.length : first;
 }

@@ -20,11 +20,13 @@ const NON_ASCII = ['é', 'Ž', 'ß', '日本', '線路', '😀', '🚆'];
  * A Northvale Rail Turtle (or TriG) document of `statements` subjects, built from `random`: prefixed
  * names and full IRIs, `;` and `,` lists, blank nodes and collections, literals with language tags,
  * datatypes, `"""` strings over several lines, numbers, comments (allow comments at line ends and
- * alone) and non-ASCII text of every UTF-8 length; LF or CRLF line ends.
+ * alone) and non-ASCII text of every UTF-8 length; LF, CRLF or CR line ends.
  */
 export function generatedDocument(random: () => number, statements: number, format: 'turtle' | 'trig'): GeneratedDocument {
   const pick = <T>(items: readonly T[]): T => items[Math.floor(random() * items.length)];
-  const newline = random() < 0.3 ? '\r\n' : '\n';
+  const newlineDraw = random();
+  // Mostly LF; CRLF and the old lone CR too, which n3 also counts as a line end.
+  const newline = newlineDraw < 0.2 ? '\r\n' : newlineDraw < 0.3 ? '\r' : '\n';
   const parts: { text: string; kind?: keyof GeneratedDocument['cuts'] }[] = [];
   const add = (text: string, kind?: keyof GeneratedDocument['cuts']): void => {
     parts.push({ text, kind });

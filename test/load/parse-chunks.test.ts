@@ -83,8 +83,8 @@ describe('generated Turtle and TriG read in chunks', () => {
         expect(parseCutBytes(bytes, randomCuts(random, bytes.length, 1 + Math.floor(random() * 40)), FILE, format)).toEqual(whole);
         if (round % 5 === 0) expect(parseCutBytes(bytes, everyByte(bytes.length), FILE, format)).toEqual(whole);
       }
-      // Most of the inserted texts break the document, so the errors themselves were compared.
-      expect(seen).toBeGreaterThan(100);
+      // Most of the inserted texts break the document (half at least), so the errors themselves were compared.
+      expect(seen).toBeGreaterThan(75);
     });
   }
 
