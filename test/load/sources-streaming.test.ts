@@ -140,3 +140,59 @@ describe('RDF/XML and JSON-LD read from random chunks as from one', () => {
     }
   });
 });
+
+describe('generated JSON-LD read from random chunks as from one', () => {
+  /** A Northvale Rail JSON-LD document: nested node objects, values before their @id, lists, non-ASCII labels. */
+  function jsonLdDocument(random: () => number, nodes: number): string {
+    const pick = <T>(items: readonly T[]): T => items[Math.floor(random() * items.length)];
+    const graph: unknown[] = [];
+    for (let index = 0; index < nodes; index++) {
+      const node: Record<string, unknown> = {};
+      // Keys before "@id" make the parser hold their statements back until the @id comes.
+      if (random() < 0.5) node.label = { '@value': `Wagen ${pick(['é', '日本', '🚆', 'ß'])} ${index}`, '@language': 'de' };
+      node['@id'] = `nv:Car${index}`;
+      node['@type'] = 'owl:Class';
+      node.subClassOf = random() < 0.3 ? [`nv:Car${Math.floor(random() * nodes)}`, 'nv:Asset'] : 'nv:Asset';
+      if (random() < 0.4) node.partOf = { '@id': `nv:Train${index % 5}`, label: `Zug ${index % 5} ü`, partOf: { '@id': 'nv:Fleet' } };
+      if (random() < 0.2) node.consistOf = { '@list': [`nv:Axle${index}`, `nv:Axle${index + 1}`] };
+      graph.push(node);
+    }
+    const document = {
+      '@context': {
+        nv: NV,
+        owl: 'http://www.w3.org/2002/07/owl#',
+        rdfs: 'http://www.w3.org/2000/01/rdf-schema#',
+        label: 'rdfs:label',
+        subClassOf: { '@id': 'rdfs:subClassOf', '@type': '@id' },
+        partOf: { '@id': 'nv:partOf' },
+        consistOf: { '@id': 'nv:consistOf', '@type': '@id' },
+      },
+      '@graph': graph,
+    };
+    return JSON.stringify(document, null, random() < 0.5 ? 2 : undefined);
+  }
+
+  it('gives the same statements, places and errors for 30 documents, whole or broken', async () => {
+    const random = randomSource(41);
+    let statements = 0;
+    let broken = 0;
+    for (let round = 0; round < 30; round++) {
+      let text = jsonLdDocument(random, 2 + Math.floor(random() * 12));
+      // Every third document has a syntax error somewhere in it: a second comma after one (no string holds a comma).
+      if (round % 3 === 2) {
+        const commas = [...text.matchAll(/,/g)].map((match) => match.index as number);
+        const at = commas[Math.floor(random() * commas.length)] + 1;
+        text = `${text.slice(0, at)},${text.slice(at)}`;
+      }
+      const bytes = Buffer.from(text);
+      const whole = await loadSources(['-'], { stdin: Readable.from([bytes]) });
+      expect(whole.sources[0].format).toBe('json-ld');
+      statements += whole.sources[0].statements.length;
+      if (whole.sources[0].errors.length > 0) broken++;
+      const chunked = await loadSources(['-'], { stdin: Readable.from(pieces(bytes, randomCuts(random, bytes.length, 1 + Math.floor(random() * 40)))) });
+      expect(loaded(chunked)).toEqual(loaded(whole));
+    }
+    expect(statements).toBeGreaterThan(300);
+    expect(broken).toBe(10);
+  });
+});
