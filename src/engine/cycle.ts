@@ -41,6 +41,22 @@ export class CycleSource {
     return this.memberSets().length;
   }
 
+  /** The indexes of the components that hold one of the nodes, ascending. */
+  componentsHolding(nodes: Int32Array): number[] {
+    this.memberSets();
+    const componentOf = this.componentOf as Int32Array;
+    const found = new Set<number>();
+    for (const node of nodes) {
+      if (node >= 0 && node < componentOf.length && componentOf[node] > 0) found.add(componentOf[node] - 1);
+    }
+    return [...found].sort((left, right) => left - right);
+  }
+
+  /** The members of the component at an index, in no particular order. */
+  memberIds(index: number): readonly number[] {
+    return this.memberSets()[index];
+  }
+
   /** The component at an index, with its members ordered and its closed walk. */
   component(index: number): CycleComponent {
     let found = this.ordered.get(index);
