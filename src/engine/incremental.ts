@@ -1,12 +1,15 @@
 // Re-runs rules after an edit around the changed nodes only, giving the findings a full run would.
 import type { GraphChanges } from '../graph/apply-edit.js';
+import { BuiltHierarchyGraph } from '../graph/built-graph.js';
+import type { RoleAdjacency } from '../graph/csr.js';
 import type { HierarchyGraph, NodeKind } from '../graph/hierarchy-graph.js';
 import type { Statement } from '../load/statement.js';
 import { ROLES, type Role } from '../roles/role.js';
-import { BACKWARD, FORWARD, compileAutomaton } from './automaton.js';
+import { BACKWARD, compileAutomaton } from './automaton.js';
 import type { Finding, Level, RuleFailure } from './finding.js';
 import { formatPath, type PathExpression } from './path.js';
-import { mentionedSlots, planConjunction, planRule, positiveSlots, type PlanSeed } from './plan.js';
+import { PlanContext, mentionedSlots, planConjunction, planRule, positiveSlots, type PlanSeed } from './plan.js';
+import { SearchArena } from './path-search.js';
 import { compileRule, type ProgramEntry, type RuleProgram } from './program.js';
 import { createBindings, evaluatePlan } from './evaluate.js';
 import { compareFindings, findingsOf, messageFollowsNodes, planContextFor, runRules, type RuleToRun, type RunResult } from './run.js';
@@ -44,6 +47,85 @@ import { compareFindings, findingsOf, messageFollowsNodes, planContextFor, runRu
  * reported nodes.
  */
 
+/** How many times the pairs of the object side's search the subject side's may visit before the object side is taken. */
+const SUBJECT_SIDE_PREFERENCE = 2;
+
+/**
+ * The search behind A_P: breadth-first over (node, automaton state) pairs, backwards from the
+ * changed edges, over the edges of both graphs; resumable, so two can run in step.
+ */
+class SideSearch {
+  private readonly states: number;
+  /** Per state: the moves into it, as (from state, role, whether the move walks its role backwards). */
+  private readonly incoming: { from: number; role: Role; backward: boolean }[][];
+  private readonly visited: Uint8Array;
+  private readonly queue: number[] = [];
+  private head = 0;
+  private readonly found = new Set<number>();
+
+  constructor(
+    private readonly view: EditView,
+    path: PathExpression,
+    inverted: boolean,
+  ) {
+    const automaton = compileAutomaton(path, inverted);
+    this.states = automaton.stateCount;
+    this.visited = new Uint8Array(view.after.nodeCount * this.states);
+    this.incoming = Array.from({ length: this.states }, () => []);
+    for (const id of view.existence) this.found.add(id);
+    for (let state = 0; state < this.states; state++) {
+      for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
+        const role = ROLES[automaton.transitionRole[move]];
+        const backward = automaton.transitionDirection[move] === BACKWARD;
+        this.incoming[automaton.transitionTarget[move]].push({ from: state, role, backward });
+        // A walk at `state` that takes this move over a changed edge stands at the edge's start (its end, walked backwards).
+        const edges = view.changes.edges[role];
+        for (const list of [edges.added, edges.removed]) {
+          for (const [from, to] of list) this.push(backward ? to : from, state);
+        }
+      }
+    }
+  }
+
+  private push(node: number, state: number): void {
+    const pair = node * this.states + state;
+    if (this.visited[pair] === 1) return;
+    this.visited[pair] = 1;
+    this.queue.push(pair);
+  }
+
+  /** Visits up to `pairs` more pairs; true when the search is done. */
+  advance(pairs: number): boolean {
+    const states = this.states;
+    const stop = this.head + pairs;
+    while (this.head < this.queue.length && this.head < stop) {
+      const pair = this.queue[this.head++];
+      const node = Math.floor(pair / states);
+      const state = pair - node * states;
+      if (state === 0) this.found.add(node);
+      for (const { from, role, backward } of this.incoming[state]) {
+        // The walk came into `node` over this move: from a predecessor for a forward step, a successor for a backward one.
+        for (const columns of this.view.neighbourColumns(role, backward)) {
+          const [offsets, column] = columns;
+          if (node + 1 >= offsets.length) continue;
+          for (let index = offsets[node]; index < offsets[node + 1]; index++) this.push(column[index], from);
+        }
+      }
+    }
+    return this.head >= this.queue.length;
+  }
+
+  /** Pairs visited so far. */
+  visitedPairs(): number {
+    return this.head;
+  }
+
+  /** The nodes reached at the start state, ascending. */
+  result(): Int32Array {
+    return Int32Array.from(this.found).sort();
+  }
+}
+
 /** A rule that the seeded re-run cannot cover, and why (the rule is then run in full). */
 class NotSeedable extends Error {}
 
@@ -59,8 +141,12 @@ class EditView {
   /** Nodes only one graph has. */
   readonly existence: number[];
   private readonly reach = new Map<string, Int32Array>();
+  private readonly pathSides = new Map<string, { subject: boolean; ids: Int32Array }>();
   private readonly kindSets = new Map<NodeKind, Int32Array>();
   private readonly cycleSets = new Map<string, Int32Array>();
+
+  /** The new graph's plan context: local, so seeded runs compute no whole-graph structure they have not earned. */
+  private readonly afterContext: PlanContext;
 
   constructor(
     readonly before: HierarchyGraph,
@@ -68,6 +154,37 @@ class EditView {
     readonly changes: GraphChanges,
   ) {
     this.existence = [...changes.addedNodes, ...changes.vanishedNodes];
+    this.afterContext = new PlanContext(after, new SearchArena(after.nodeCount, true));
+  }
+
+  /** The plan context of either graph (the old one's is shared with the run that made the old findings). */
+  context(graph: HierarchyGraph): PlanContext {
+    return graph === this.after ? this.afterContext : planContextFor(graph);
+  }
+
+  private readonly columns = new Map<string, [Int32Array, Int32Array][]>();
+
+  /**
+   * The CSR columns (offsets, neighbours) of a role in one direction, in both graphs: one pair when
+   * the edit left the role's adjacency as it was.
+   */
+  neighbourColumns(role: Role, outgoing: boolean): [Int32Array, Int32Array][] {
+    const key = `${role} ${outgoing}`;
+    let found = this.columns.get(key);
+    if (found === undefined) {
+      const of = (graph: HierarchyGraph): [Int32Array, Int32Array] | RoleAdjacency | undefined => {
+        if (!(graph instanceof BuiltHierarchyGraph)) return undefined;
+        return graph.parts.adjacency[role];
+      };
+      const before = of(this.before);
+      const after = of(this.after);
+      if (before === undefined || after === undefined || Array.isArray(before) || Array.isArray(after)) throw new Error('an edit view needs built graphs');
+      const pick = (adjacency: RoleAdjacency): [Int32Array, Int32Array] =>
+        outgoing ? [adjacency.offsets, adjacency.targets] : [adjacency.reverseOffsets, adjacency.reverseSources];
+      found = before === after ? [pick(after)] : [pick(before), pick(after)];
+      this.columns.set(key, found);
+    }
+    return found;
   }
 
   /** Whether a role has added or removed edges. */
@@ -84,51 +201,51 @@ class EditView {
   startSide(path: PathExpression, inverted: boolean): Int32Array {
     const key = `${inverted ? '^' : ''}${formatPath(path)}`;
     let found = this.reach.get(key);
-    if (found !== undefined) return found;
-    const automaton = compileAutomaton(path, inverted);
-    const states = automaton.stateCount;
-    const nodeCount = this.after.nodeCount;
-    const visited = new Uint8Array(nodeCount * states);
-    const queue: number[] = [];
-    const push = (node: number, state: number): void => {
-      const pair = node * states + state;
-      if (visited[pair] === 1) return;
-      visited[pair] = 1;
-      queue.push(pair);
-    };
-    const moveFrom = new Int32Array(automaton.transitionRole.length);
-    for (let state = 0; state < states; state++) {
-      for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) moveFrom[move] = state;
+    if (found === undefined) {
+      const search = new SideSearch(this, path, inverted);
+      search.advance(Infinity);
+      found = search.result();
+      this.reach.set(key, found);
     }
-    for (let move = 0; move < moveFrom.length; move++) {
-      const role = ROLES[automaton.transitionRole[move]];
-      const forward = automaton.transitionDirection[move] === FORWARD;
-      const edges = this.changes.edges[role];
-      for (const list of [edges.added, edges.removed]) {
-        for (const [from, to] of list) push(forward ? from : to, moveFrom[move]);
-      }
-    }
-    const result = new Set<number>(this.existence);
-    for (let head = 0; head < queue.length; head++) {
-      const pair = queue[head];
-      const node = Math.floor(pair / states);
-      const state = pair - node * states;
-      if (state === 0) result.add(node);
-      for (let move = 0; move < moveFrom.length; move++) {
-        if (automaton.transitionTarget[move] !== state) continue;
-        const role = ROLES[automaton.transitionRole[move]];
-        // The walk came into `node` over this move: from a predecessor for a forward step, a successor for a backward one.
-        const backward = automaton.transitionDirection[move] === BACKWARD;
-        for (const graph of [this.before, this.after]) {
-          if (node >= graph.nodeCount) continue;
-          const neighbours = backward ? graph.successors(role, node) : graph.predecessors(role, node);
-          for (let index = 0; index < neighbours.length; index++) push(neighbours[index], moveFrom[move]);
-        }
-      }
-    }
-    found = Int32Array.from(result).sort();
-    this.reach.set(key, found);
     return found;
+  }
+
+  /**
+   * The seeds of a path entry: A_P on its subject or B_P on its object. Either covers the entry;
+   * the subject side is preferred, since evaluation from it walks the path forward, which in a
+   * hierarchy (edges point to the broader term) stays near the seeds. It is given up only when its
+   * search visits many times the pairs the object side's does (a change near the top).
+   */
+  pathSeeds(path: PathExpression): { subject: boolean; ids: Int32Array } {
+    const subjectKey = formatPath(path);
+    let chosen = this.pathSides.get(subjectKey);
+    if (chosen === undefined) {
+      chosen = this.chooseSide(path);
+      this.pathSides.set(subjectKey, chosen);
+    }
+    return chosen;
+  }
+
+  private chooseSide(path: PathExpression): { subject: boolean; ids: Int32Array } {
+    const subjectKey = formatPath(path);
+    const objectKey = `^${subjectKey}`;
+    const known = this.reach.get(subjectKey);
+    if (known !== undefined) return { subject: true, ids: known };
+    const starts = new SideSearch(this, path, false);
+    const ends = new SideSearch(this, path, true);
+    const chunk = 4096;
+    while (!starts.advance(SUBJECT_SIDE_PREFERENCE * chunk)) {
+      if (ends.advance(chunk)) {
+        const limit = SUBJECT_SIDE_PREFERENCE * ends.visitedPairs();
+        if (starts.advance(limit - starts.visitedPairs())) break;
+        const ids = ends.result();
+        this.reach.set(objectKey, ids);
+        return { subject: false, ids };
+      }
+    }
+    const ids = starts.result();
+    this.reach.set(subjectKey, ids);
+    return { subject: true, ids };
   }
 
   /** Nodes whose kind bit differs between the graphs, and nodes only one graph has. */
@@ -156,7 +273,7 @@ class EditView {
     const endIds = Int32Array.from(ends);
     const seeds = new Set<number>(ends);
     for (const graph of [this.before, this.after]) {
-      const source = planContextFor(graph).cycleSource(path);
+      const source = this.context(graph).cycleSource(path);
       for (const index of source.componentsHolding(endIds)) for (const member of source.memberIds(index)) seeds.add(member);
     }
     found = Int32Array.from(seeds).sort();
@@ -172,10 +289,8 @@ function conjunctionSeeds(view: EditView, entries: ProgramEntry[], outer: Set<nu
   for (const entry of entries) {
     switch (entry.type) {
       case 'path': {
-        const starts = view.startSide(entry.path, false);
-        const ends = view.startSide(entry.path, true);
-        if (starts.length <= ends.length) seeds.push({ slot: entry.subject, list: false, ids: starts });
-        else seeds.push({ slot: entry.object, list: false, ids: ends });
+        const { subject, ids } = view.pathSeeds(entry.path);
+        seeds.push({ slot: subject ? entry.subject : entry.object, list: false, ids });
         break;
       }
       case 'is':
@@ -224,7 +339,7 @@ function notSeeds(view: EditView, inner: ProgramEntry[], available: Set<number>)
     const carried = new Set<number>();
     const slotCount = Math.max(...[...mentionedSlots(inner), seed.slot]) + 1;
     for (const graph of [view.before, view.after]) {
-      const steps = planConjunction(relaxed, planContextFor(graph), [{ slot: seed.slot, list: false, ids }]);
+      const steps = planConjunction(relaxed, view.context(graph), [{ slot: seed.slot, list: false, ids }]);
       const bindings = createBindings(slotCount, 0);
       evaluatePlan(graph, steps, bindings, (solution) => {
         carried.add(solution.nodes[target]);
@@ -273,7 +388,7 @@ function pointCheck(view: EditView, program: RuleProgram, level: Level, finding:
     const ids = pair === undefined ? [id] : [slotIds.get(pair[0]) ?? id, slotIds.get(pair[1]) ?? id];
     seeds.push({ slot, list: false, ids: Int32Array.from(new Set(ids)).sort() });
   }
-  const plan = planRule(program, planContextFor(graph), seeds);
+  const plan = planRule(program, view.context(graph), seeds);
   return findingsOf(graph, plan, level).find((found) => found.fingerprint === finding.fingerprint);
 }
 
@@ -293,10 +408,10 @@ function rerunRule(view: EditView, program: RuleProgram, level: Level, earlier: 
   const found = new Map<string, Finding>();
   const gone = new Map<string, Finding>();
   for (const seed of seeds) {
-    for (const finding of findingsOf(view.after, planRule(program, planContextFor(view.after), [seed]), level)) {
+    for (const finding of findingsOf(view.after, planRule(program, view.context(view.after), [seed]), level)) {
       if (!found.has(finding.fingerprint)) found.set(finding.fingerprint, finding);
     }
-    for (const finding of findingsOf(view.before, planRule(program, planContextFor(view.before), [seed]), level)) {
+    for (const finding of findingsOf(view.before, planRule(program, view.context(view.before), [seed]), level)) {
       if (!gone.has(finding.fingerprint)) gone.set(finding.fingerprint, finding);
     }
   }

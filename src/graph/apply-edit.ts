@@ -5,7 +5,7 @@ import { ROLES, SYMMETRIC_ROLES, type Role, type RoleMap } from '../roles/role.j
 import { OWL_DEPRECATED, RDF_FIRST, RDF_TYPE, RDFS_LABEL, SKOS_PREF_LABEL } from '../roles/vocabulary.js';
 import { buildHierarchyGraph, isTrueLiteral, labelRank } from './build.js';
 import { BuiltHierarchyGraph, KIND_BITS, distinctEdgeCount, type GraphParts } from './built-graph.js';
-import { EdgeCollector, buildAdjacency, findEdge, type RoleAdjacency } from './csr.js';
+import { EdgeCollector, findEdge, patchAdjacency, type RoleAdjacency } from './csr.js';
 import type { GraphStats, HierarchyGraph, ScopeOptions } from './hierarchy-graph.js';
 import { AXIOM_TYPES, STRUCTURE_PREDICATES, isBlank, isStructure } from './owl-axioms.js';
 import { inScopeTest } from './scope.js';
@@ -369,25 +369,9 @@ class EditPatch {
 
   /** A role's adjacency again: the old edges' statements that stay, then the added ones. */
   private repack(role: Role, nodeCount: number): RoleAdjacency {
-    const old = this.parts.adjacency[role];
-    const collector = new EdgeCollector();
-    const removed = this.removedRows;
-    const checkRemoved = removed.size > 0;
-    for (let source = 0; source < this.oldCount; source++) {
-      for (let edge = old.offsets[source]; edge < old.offsets[source + 1]; edge++) {
-        const target = old.targets[edge];
-        for (let index = old.evidenceOffsets[edge]; index < old.evidenceOffsets[edge + 1]; index++) {
-          const row = old.evidence[index];
-          if (checkRemoved && removed.has(row)) continue;
-          collector.add(source, target, row);
-        }
-      }
-    }
-    const added = this.addedEdges.get(role);
-    if (added !== undefined) {
-      for (let index = 0; index < added.length; index++) collector.add(added.sources[index], added.targets[index], added.statements[index]);
-    }
-    return buildAdjacency(nodeCount, collector);
+    const touched = new Set<number>();
+    for (const [from] of this.touchedEdges.get(role)?.values() ?? []) touched.add(from);
+    return patchAdjacency(this.parts.adjacency[role], nodeCount, { removed: this.removedRows, added: this.addedEdges.get(role), touched });
   }
 
   /** Which touched edges the edit added, removed or restated. */
