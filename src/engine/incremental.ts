@@ -5,7 +5,7 @@ import type { RoleAdjacency } from '../graph/csr.js';
 import type { HierarchyGraph, NodeKind } from '../graph/hierarchy-graph.js';
 import type { Statement } from '../load/statement.js';
 import { ROLES, type Role } from '../roles/role.js';
-import { BACKWARD, compileAutomaton } from './automaton.js';
+import { BACKWARD, compileAutomaton, singleSteps } from './automaton.js';
 import type { Finding, Level, RuleFailure } from './finding.js';
 import { formatPath, type PathExpression } from './path.js';
 import { PlanContext, mentionedSlots, planConjunction, planRule, positiveSlots, type PlanSeed } from './plan.js';
@@ -67,6 +67,7 @@ class SideSearch {
     private readonly view: EditView,
     path: PathExpression,
     inverted: boolean,
+    private readonly keep: (id: number) => boolean = () => true,
   ) {
     const automaton = compileAutomaton(path, inverted);
     this.states = automaton.stateCount;
@@ -88,6 +89,7 @@ class SideSearch {
   }
 
   private push(node: number, state: number): void {
+    if (!this.keep(node)) return;
     const pair = node * this.states + state;
     if (this.visited[pair] === 1) return;
     this.visited[pair] = 1;
@@ -248,6 +250,30 @@ class EditView {
     return { subject: true, ids };
   }
 
+  /**
+   * The seeds of `[?x, P, ?x]`: a closed walk of P from x that exists in one graph only steps over
+   * a changed edge, so x reaches the edge (A_P) and is reached from it (B_P), and so does every
+   * node of the walk. When P is X+ or X* with X single steps, A_P ∩ B_P is found by a backward
+   * search from the changed edges kept inside B_P, not A_P in full; X* holds for every x anyway.
+   */
+  closedWalkSeeds(path: PathExpression): Int32Array {
+    const key = `closed ${formatPath(path)}`;
+    let found = this.reach.get(key);
+    if (found !== undefined) return found;
+    if (path.type !== 'modified' || path.modifier === '?' || singleSteps(path.path) === undefined) {
+      found = this.startSide(path, true);
+    } else if (path.modifier === '*') {
+      found = Int32Array.from(this.existence).sort();
+    } else {
+      const ends = new Set(this.startSide(path, true));
+      const search = new SideSearch(this, path, false, (id) => ends.has(id));
+      search.advance(Infinity);
+      found = search.result();
+    }
+    this.reach.set(key, found);
+    return found;
+  }
+
   /** Nodes whose kind bit differs between the graphs, and nodes only one graph has. */
   kindChanged(kind: NodeKind): Int32Array {
     let found = this.kindSets.get(kind);
@@ -289,6 +315,10 @@ function conjunctionSeeds(view: EditView, entries: ProgramEntry[], outer: Set<nu
   for (const entry of entries) {
     switch (entry.type) {
       case 'path': {
+        if (entry.subject === entry.object) {
+          seeds.push({ slot: entry.subject, list: false, ids: view.closedWalkSeeds(entry.path) });
+          break;
+        }
         const { subject, ids } = view.pathSeeds(entry.path);
         seeds.push({ slot: subject ? entry.subject : entry.object, list: false, ids });
         break;

@@ -226,6 +226,8 @@ export class PathSearch {
     // No full closure here: an early exit, with the labels pruning what cannot reach end, stays cheap on deep chains.
     const reached = this.run(start, false, (node) => node === end, end);
     work[end] += this.lastRunWork;
+    // A local run's searches back to their start earn the components that answer them at once.
+    if (start === end && this.arena.local) this.searchWork += this.lastRunWork;
     return reached;
   }
 

@@ -176,6 +176,15 @@ unordered:
 message: "{x} and {z} meet through {y}"`,
   ),
   userRule(
+    'part-off-cycle',
+    `- [?x, part-of, ?y]
+- not:
+    - [?x, subclass-of+, ?x]`,
+    `focus: ?x
+nodes: [?x, ?y]
+message: "{x} is a part of {y} and on no subclass cycle"`,
+  ),
+  userRule(
     'mixed-cycle',
     `- cycle: { path: (subclass-of|part-of)+, members: ?m }
 - not:
