@@ -37,7 +37,8 @@ import { compareFindings, findingsOf, messageFollowsNodes, planContextFor, runRu
  *   evaluating D, with its `not`s and the filters on outer-only slots left out (a weaker
  *   conjunction, so every τ is among its solutions), from the seed on both graphs.
  * So seeded evaluation finds, on the new graph, every solution that is new and, on the old graph,
- * every one that is gone. A fingerprint neither finds has the same solutions on both graphs, so
+ * every one that is gone (when the rule had few findings, each of them is point-checked instead of
+ * that second run, which decides it as well). A fingerprint neither finds has the same solutions on both graphs, so
  * its finding (and, since the kept message is the least one, its message) is the old one. A
  * fingerprint either finds is decided by a point check on the new graph (every reported slot seeded
  * with the finding's nodes), which enumerates all of its solutions there; when the message and focus
@@ -437,14 +438,18 @@ function rerunRule(view: EditView, program: RuleProgram, level: Level, earlier: 
   const seeds = ruleSeeds(view, program);
   const found = new Map<string, Finding>();
   const gone = new Map<string, Finding>();
+  // Few old findings beside many seeds: a point check of each costs less than the seeded run on the old graph.
+  const checkEveryEarlier = earlier.length <= seeds.reduce((sum, seed) => sum + seed.ids.length, 0);
   for (const seed of seeds) {
     for (const finding of findingsOf(view.after, planRule(program, view.context(view.after), [seed]), level)) {
       if (!found.has(finding.fingerprint)) found.set(finding.fingerprint, finding);
     }
+    if (checkEveryEarlier) continue;
     for (const finding of findingsOf(view.before, planRule(program, view.context(view.before), [seed]), level)) {
       if (!gone.has(finding.fingerprint)) gone.set(finding.fingerprint, finding);
     }
   }
+  if (checkEveryEarlier) for (const finding of earlier) if (!found.has(finding.fingerprint)) gone.set(finding.fingerprint, finding);
   const fixedMessage = messageFollowsNodes(program);
   const findings: Finding[] = [];
   for (const finding of earlier) {
