@@ -490,8 +490,9 @@ export function rerunRules(
   after: { graph: HierarchyGraph; changes: GraphChanges },
   rules: RuleToRun[],
 ): IncrementalResult {
-  if (after.changes.rebuilt) {
-    const reason = after.changes.reason ?? 'the graph was rebuilt';
+  const patched = before.graph instanceof BuiltHierarchyGraph && after.graph instanceof BuiltHierarchyGraph;
+  if (after.changes.rebuilt || !patched) {
+    const reason = after.changes.reason ?? (patched ? 'the graph was rebuilt' : 'the graphs were not made by buildHierarchyGraph and applyEditToGraph');
     return { ...runRules(after.graph, rules), fullRuns: rules.map(({ rule }) => ({ ruleId: rule.id, reason })) };
   }
   const view = new EditView(before.graph, after.graph, after.changes);
