@@ -2,7 +2,7 @@
 import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
 import { shortestClosedWalk } from '../graph/paths.js';
 import { cyclicComponents } from '../graph/scc.js';
-import { FORWARD, singleSteps, type RoleStep } from './automaton.js';
+import { BACKWARD, FORWARD, singleSteps, type RoleStep } from './automaton.js';
 import type { PathExpression } from './path.js';
 import { PathSearch, stepSuccessors, type SearchArena, type WalkedEdge } from './path-search.js';
 
@@ -41,6 +41,70 @@ export class CycleSource {
     return this.memberSets().length;
   }
 
+  /** Per node in a local run: 1 once its component has been looked for. */
+  private looked: Uint8Array | undefined;
+
+  /** The indexes of the components that hold one of the nodes, ascending. */
+  componentsHolding(nodes: Int32Array): number[] {
+    if (this.arena.local && this.components === undefined) return this.localComponentsHolding(nodes);
+    this.memberSets();
+    const componentOf = this.componentOf as Int32Array;
+    const found = new Set<number>();
+    for (const node of nodes) {
+      if (node >= 0 && node < componentOf.length && componentOf[node] > 0) found.add(componentOf[node] - 1);
+    }
+    return [...found].sort((left, right) => left - right);
+  }
+
+  /**
+   * Local run: the component of each node is what it reaches that also reaches it back, found by a
+   * forward search from it and a backward one kept inside what the forward one reached; only the
+   * nodes' own components are looked for, never the whole graph's. They are numbered -1, -2, ...
+   * so that they never stand for a whole-graph component.
+   */
+  private localComponentsHolding(nodes: Int32Array): number[] {
+    const nodeCount = this.graph.nodeCount;
+    const looked = (this.looked ??= new Uint8Array(nodeCount));
+    const componentOf = (this.localComponentOf ??= new Int32Array(nodeCount));
+    const found: number[][] = (this.localComponents ??= []);
+    const successors = this.successors();
+    const predecessors = this.predecessors();
+    const indexes = new Set<number>();
+    for (const node of nodes) {
+      if (node < 0 || node >= nodeCount) continue;
+      if (looked[node] === 0) {
+        const forward = reachFrom(node, successors, () => true);
+        const members = [...reachFrom(node, predecessors, (id) => forward.has(id))].sort((left, right) => left - right);
+        const cyclic = members.length > 1 || Array.from(successors(node)).includes(node);
+        for (const member of members) looked[member] = 1;
+        looked[node] = 1;
+        if (cyclic) {
+          found.push(members);
+          for (const member of members) componentOf[member] = found.length;
+        }
+      }
+      if (componentOf[node] > 0) indexes.add(-componentOf[node]);
+    }
+    return [...indexes].sort((left, right) => left - right);
+  }
+
+  private localComponents: number[][] | undefined;
+  private localComponentOf: Int32Array | undefined;
+
+  private predecessors(): (id: number) => ArrayLike<number> {
+    if (this.steps !== undefined) {
+      const flipped = this.steps.map(({ role, direction }) => ({ role, direction: direction === FORWARD ? BACKWARD : FORWARD }));
+      return stepSuccessors(this.graph, flipped);
+    }
+    const search = (this.stepSearch as PathSearch).reverse();
+    return (id) => search.from(id);
+  }
+
+  /** The members of the component at an index, in no particular order. */
+  memberIds(index: number): readonly number[] {
+    return index < 0 ? (this.localComponents as number[][])[-index - 1] : this.memberSets()[index];
+  }
+
   /** The component at an index, with its members ordered and its closed walk. */
   component(index: number): CycleComponent {
     let found = this.ordered.get(index);
@@ -74,8 +138,9 @@ export class CycleSource {
 
   private order(index: number): CycleComponent {
     const graph = this.graph;
-    const members = this.memberSets()[index];
-    const componentOf = this.componentOf as Int32Array;
+    const members = this.memberIds(index);
+    const componentOf = index < 0 ? (this.localComponentOf as Int32Array) : (this.componentOf as Int32Array);
+    const mark = index < 0 ? -index : index + 1;
     // The walk starts at the in-scope member whose term sorts first (the finding's focus), so a cycle
     // through borrowed terms is still reported on a term of the graph's own; with none in scope,
     // at the member that sorts first.
@@ -93,7 +158,7 @@ export class CycleSource {
     // Successors are taken in term order, so the walk (and the finding's node order) depends only on
     // the statements, never on the order they were read in (nor on an endpoint's row order).
     const successors = this.successors();
-    const inComponent = (id: number): boolean => componentOf[id] === index + 1;
+    const inComponent = (id: number): boolean => componentOf[id] === mark;
     const termOrder = (id: number): number[] => Array.from(successors(id)).filter(inComponent).sort((left, right) => compareTerms(graph, left, right));
     const walkNodes = shortestClosedWalk(first, termOrder, inComponent);
     if (walkNodes === undefined) throw new Error(`no closed walk through ${firstTerm} in its own component`);
@@ -121,6 +186,22 @@ export class CycleSource {
     if (edges === undefined) throw new Error(`no walk from ${this.graph.term(from)} to ${this.graph.term(to)} on a cycle that uses it`);
     return edges;
   }
+}
+
+/** The nodes reached from a start (itself included) over successors that pass `keep`. */
+function reachFrom(start: number, successors: (id: number) => ArrayLike<number>, keep: (id: number) => boolean): Set<number> {
+  const reached = new Set<number>([start]);
+  const queue = [start];
+  for (let head = 0; head < queue.length; head++) {
+    const next = successors(queue[head]);
+    for (let index = 0; index < next.length; index++) {
+      const id = next[index];
+      if (reached.has(id) || !keep(id)) continue;
+      reached.add(id);
+      queue.push(id);
+    }
+  }
+  return reached;
 }
 
 function compareTerms(graph: HierarchyGraph, left: number, right: number): number {

@@ -47,6 +47,14 @@ class PlanRunner {
     const step = steps[index];
     const next = index + 1;
     switch (step.kind) {
+      case 'seed':
+        for (let index = 0; index < step.ids.length; index++) {
+          const id = step.ids[index];
+          if (id >= graph.nodeCount || graph.vanished?.(id) === true) continue;
+          nodes[step.slot] = id;
+          if (this.run(steps, next, onSolution)) return true;
+        }
+        return false;
       case 'is':
         if (!step.generate) return graph.is(step.nodeKind, nodes[step.slot]) ? this.run(steps, next, onSolution) : false;
         for (let id = 0; id < graph.nodeCount; id++) {
@@ -76,9 +84,10 @@ class PlanRunner {
       case 'generate':
         return this.generate(step, steps, next, onSolution);
       case 'cycle': {
-        const count = step.source.count();
-        for (let component = 0; component < count; component++) {
-          this.bindings.lists[step.slot] = step.source.component(component);
+        const indexes = step.only === undefined ? undefined : step.source.componentsHolding(step.only);
+        const count = indexes === undefined ? step.source.count() : indexes.length;
+        for (let position = 0; position < count; position++) {
+          this.bindings.lists[step.slot] = step.source.component(indexes === undefined ? position : indexes[position]);
           if (this.run(steps, next, onSolution)) return true;
         }
         return false;
@@ -91,7 +100,10 @@ class PlanRunner {
     const { graph, nodes } = this;
     const { subject, object, search } = step;
     const roleSteps = step.steps;
+    const vanished = graph.vanished?.bind(graph);
     for (let id = 0; id < graph.nodeCount; id++) {
+      // An id an edit stripped of every statement is no node: only a zero-length path could reach it.
+      if (vanished !== undefined && vanished(id)) continue;
       if (subject === object) {
         const holds = roleSteps !== undefined ? hasStep(graph, roleSteps, id, id) : search.holds(id, id);
         if (!holds) continue;

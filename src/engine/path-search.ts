@@ -39,7 +39,15 @@ export class SearchArena {
   parents = new Int32Array(0);
   parentMoves = new Int32Array(0);
 
-  constructor(readonly nodeCount: number) {
+  /**
+   * `local`: the searches of a run that asks about a few nodes only (an edit's seeded re-run) do
+   * not compute whole-graph structures (components, labels) up front, only once their work has
+   * cost as much as building them.
+   */
+  constructor(
+    readonly nodeCount: number,
+    readonly local = false,
+  ) {
     this.nodeMarks = new Uint32Array(nodeCount);
   }
 
@@ -188,13 +196,15 @@ export class PathSearch {
   /** Whether the path leads from start to end; stops as soon as end is reached. */
   holds(start: number, end: number): boolean {
     if (this.onlyStep !== undefined) return this.stepEdge(start, end) !== undefined;
-    if (start === end && this.plusSteps !== undefined) return this.onCycle(start);
+    if (start === end && this.plusSteps !== undefined && !this.wholeGraphUnearned()) return this.onCycle(start);
     const memoised = this.memo.get(start);
     if (memoised !== undefined) return binarySearch(memoised, end);
     if (start !== end) {
       // Most questions on a large hierarchy are answered by the labels alone, without a search.
       const labels = this.labelsOnceEarned();
-      if (labels === undefined) {
+      if (labels === undefined && this.wholeGraphUnearned()) {
+        // A local run: no component rank before the searches have earned it.
+      } else if (labels === undefined) {
         const rank = this.components().component;
         if (rank[start] < rank[end]) return false;
       } else {
@@ -216,6 +226,8 @@ export class PathSearch {
     // No full closure here: an early exit, with the labels pruning what cannot reach end, stays cheap on deep chains.
     const reached = this.run(start, false, (node) => node === end, end);
     work[end] += this.lastRunWork;
+    // A local run's searches back to their start earn the components that answer them at once.
+    if (start === end && this.arena.local) this.searchWork += this.lastRunWork;
     return reached;
   }
 
@@ -323,7 +335,7 @@ export class PathSearch {
     const graph = this.graph;
     const towardEnd = end >= 0 && start !== end;
     const labels = towardEnd ? this.labelsOnceEarned() : undefined;
-    const rank = towardEnd && labels === undefined ? this.components().component : undefined;
+    const rank = towardEnd && labels === undefined && !this.wholeGraphUnearned() ? this.components().component : undefined;
     const endRank = rank === undefined ? 0 : rank[end];
     this.lastRunWork = 0;
     if (labels !== undefined ? !labels.mayReach(start, end) : rank !== undefined && rank[start] < endRank) return false;
@@ -369,6 +381,11 @@ export class PathSearch {
   private countWork(pairs: number, towardEnd: boolean): void {
     this.lastRunWork = pairs;
     if (towardEnd) this.searchWork += pairs;
+  }
+
+  /** Whether this is a local run whose searches have not yet cost what a whole-graph structure would. */
+  private wholeGraphUnearned(): boolean {
+    return this.arena.local && this.reachLabels === undefined && this.stepComponents === undefined && this.cycleMembers === undefined && this.searchWork < this.graph.nodeCount;
   }
 
   /** Records that a start was asked about; true when it had been before. */

@@ -9,6 +9,8 @@ import type { ProgramEntry, RuleProgram } from './program.js';
 
 /** One step of a plan; the evaluator runs them in order, backtracking over the bindings they make. */
 export type PlanStep =
+  /** Binds `slot` to each of `ids` (ascending) in turn: the start of a plan seeded by an edit's changed nodes. */
+  | { kind: 'seed'; slot: number; ids: Int32Array }
   | { kind: 'is'; slot: number; nodeKind: NodeKind; generate: boolean }
   | { kind: 'differ'; left: number; right: number }
   | { kind: 'edge-check'; subject: number; object: number; steps: RoleStep[] }
@@ -18,7 +20,15 @@ export type PlanStep =
   | { kind: 'generate'; subject: number; object: number; search: PathSearch; steps: RoleStep[] | undefined }
   | { kind: 'anti-join'; steps: PlanStep[] }
   | { kind: 'absent'; slot: number; search: PathSearch }
-  | { kind: 'cycle'; slot: number; source: CycleSource };
+  /** One binding per cyclic component; with `only`, just the components that hold one of those nodes. */
+  | { kind: 'cycle'; slot: number; source: CycleSource; only?: Int32Array };
+
+/** A slot a seeded plan binds first: a node slot to each of some ids, or a member-list slot to the components holding them. */
+export interface PlanSeed {
+  slot: number;
+  list: boolean;
+  ids: Int32Array;
+}
 
 /** A rule planned against one graph: its steps, and the searches that give the evidence of each positive path entry. */
 export interface RulePlan {
@@ -71,10 +81,13 @@ interface Candidate {
   binds: number[];
 }
 
-/** Plans a compiled rule: top-level entries with nothing bound; every reported variable must end up bound. */
-export function planRule(program: RuleProgram, context: PlanContext): RulePlan {
+/**
+ * Plans a compiled rule: top-level entries with nothing bound (or only the seeds' slots); every
+ * reported variable must end up bound.
+ */
+export function planRule(program: RuleProgram, context: PlanContext, seeds: readonly PlanSeed[] = []): RulePlan {
   const bound = new Set<number>();
-  const steps = planEntries(program.match, bound, positiveSlots(program.match), context);
+  const steps = planConjunction(program.match, context, seeds, positiveSlots(program.match), bound);
   const messageReferences = program.message.filter((part) => typeof part !== 'string');
   for (const reference of [program.focus, ...program.nodes, ...messageReferences]) {
     if (!reference.list && !bound.has(reference.slot)) throw new Error('a reported variable is bound only inside not or absent');
@@ -90,8 +103,32 @@ export function planRule(program: RuleProgram, context: PlanContext): RulePlan {
   return { program, steps, evidence };
 }
 
+/**
+ * Plans a conjunction with the seeds' node slots bound first (a seed step each) and each seeded
+ * member-list slot's cycle entry limited to the components holding its ids.
+ */
+export function planConjunction(
+  entries: ProgramEntry[],
+  context: PlanContext,
+  seeds: readonly PlanSeed[],
+  outer = positiveSlots(entries),
+  bound = new Set<number>(),
+): PlanStep[] {
+  const steps: PlanStep[] = [];
+  const listSeeds = new Map<number, Int32Array>();
+  for (const seed of seeds) {
+    if (seed.list) {
+      listSeeds.set(seed.slot, seed.ids);
+    } else {
+      steps.push({ kind: 'seed', slot: seed.slot, ids: seed.ids });
+      bound.add(seed.slot);
+    }
+  }
+  return [...steps, ...planEntries(entries, bound, outer, context, listSeeds)];
+}
+
 /** Node slots that a conjunction binds by its positive entries (paths and `is`). */
-function positiveSlots(entries: ProgramEntry[]): Set<number> {
+export function positiveSlots(entries: ProgramEntry[]): Set<number> {
   const slots = new Set<number>();
   for (const entry of entries) {
     if (entry.type === 'path') slots.add(entry.subject).add(entry.object);
@@ -101,7 +138,7 @@ function positiveSlots(entries: ProgramEntry[]): Set<number> {
 }
 
 /** Node slots named anywhere inside entries (including nested `not`). */
-function mentionedSlots(entries: ProgramEntry[], into = new Set<number>()): Set<number> {
+export function mentionedSlots(entries: ProgramEntry[], into = new Set<number>()): Set<number> {
   for (const entry of entries) {
     if (entry.type === 'path') into.add(entry.subject).add(entry.object);
     else if (entry.type === 'is' || entry.type === 'absent') into.add(entry.slot);
@@ -116,14 +153,20 @@ function mentionedSlots(entries: ProgramEntry[], into = new Set<number>()): Set<
  * cost nearly nothing so they run as soon as their variables are bound; generators (entries with no
  * bound variable) only when nothing else can run. `outer` are the slots bound by enclosing conjunctions.
  */
-function planEntries(entries: ProgramEntry[], bound: Set<number>, outer: Set<number>, context: PlanContext): PlanStep[] {
+function planEntries(
+  entries: ProgramEntry[],
+  bound: Set<number>,
+  outer: Set<number>,
+  context: PlanContext,
+  listSeeds: ReadonlyMap<number, Int32Array> = new Map(),
+): PlanStep[] {
   const remaining = entries.map((entry, index) => ({ entry, index }));
   const steps: PlanStep[] = [];
   const available = new Set([...outer, ...positiveSlots(entries)]);
   while (remaining.length > 0) {
     let best: { candidate: Candidate; position: number } | undefined;
     remaining.forEach(({ entry }, position) => {
-      const candidate = candidateFor(entry, bound, available, context);
+      const candidate = candidateFor(entry, bound, available, context, listSeeds);
       if (candidate === undefined) return;
       if (
         best === undefined ||
@@ -143,7 +186,13 @@ function planEntries(entries: ProgramEntry[], bound: Set<number>, outer: Set<num
 }
 
 /** How an entry would run with the current bindings, or undefined when it cannot run yet. */
-function candidateFor(entry: ProgramEntry, bound: Set<number>, available: Set<number>, context: PlanContext): Candidate | undefined {
+function candidateFor(
+  entry: ProgramEntry,
+  bound: Set<number>,
+  available: Set<number>,
+  context: PlanContext,
+  listSeeds: ReadonlyMap<number, Int32Array>,
+): Candidate | undefined {
   const graph = context.graph;
   switch (entry.type) {
     case 'is':
@@ -168,8 +217,14 @@ function candidateFor(entry: ProgramEntry, bound: Set<number>, available: Set<nu
       const inner = planEntries(entry.entries, new Set(shared), available, context);
       return { cost: planCost(inner, graph), generator: false, binds: [], build: () => ({ kind: 'anti-join', steps: inner }) };
     }
-    case 'cycle':
+    case 'cycle': {
+      const only = listSeeds.get(entry.members);
+      if (only !== undefined) {
+        // Seeded: few components, so it runs before any generator.
+        return { cost: only.length, generator: false, binds: [], build: () => ({ kind: 'cycle', slot: entry.members, source: context.cycleSource(entry.path), only }) };
+      }
       return { cost: 1, generator: true, binds: [], build: () => ({ kind: 'cycle', slot: entry.members, source: context.cycleSource(entry.path) }) };
+    }
     case 'path':
       return pathCandidate(entry, bound, context);
   }
@@ -234,6 +289,8 @@ function planCost(steps: PlanStep[], graph: HierarchyGraph): number {
       const fanOut = step.kind === 'expand' ? estimateFanOut(step.search.path, graph) : graph.nodeCount;
       cost += rows * (1 + fanOut);
       rows *= Math.max(1, fanOut);
+    } else if (step.kind === 'seed') {
+      rows *= Math.max(1, step.ids.length);
     } else if (step.kind === 'path-check') {
       cost += rows * checkCost(step.subject, step.object, step.search.path, graph);
     } else if (step.kind === 'absent') {

@@ -28,7 +28,7 @@ export interface RunResult {
  * evidence file, line and column, then rule id, then fingerprint.
  */
 export function runRules(graph: HierarchyGraph, rules: RuleToRun[]): RunResult {
-  const context = new PlanContext(graph, new SearchArena(graph.nodeCount));
+  const context = planContextFor(graph);
   const findings: Finding[] = [];
   const failures: RuleFailure[] = [];
   for (const { rule, level } of rules) {
@@ -43,12 +43,30 @@ export function runRules(graph: HierarchyGraph, rules: RuleToRun[]): RunResult {
   return { findings, failures };
 }
 
-/** The findings of one planned rule: in-scope focus only, solutions with the same fingerprint merged (first kept). */
+/** The plan context of each graph, kept while the graph is: its searches' memos and components serve every later run on it. */
+const contexts = new WeakMap<HierarchyGraph, PlanContext>();
+
+/** The shared plan context of a graph (a graph never changes, so what its searches learnt stays true). */
+export function planContextFor(graph: HierarchyGraph): PlanContext {
+  let context = contexts.get(graph);
+  if (context === undefined) {
+    context = new PlanContext(graph, new SearchArena(graph.nodeCount));
+    contexts.set(graph, context);
+  }
+  return context;
+}
+
+/**
+ * The findings of one planned rule: in-scope focus only, solutions with the same fingerprint
+ * merged. Of merged solutions the one whose focus and message sort first is kept, so the finding
+ * does not depend on the order solutions come in (node ids, plan order, a seeded re-run).
+ */
 export function findingsOf(graph: HierarchyGraph, plan: RulePlan, level: Level): Finding[] {
   const program = plan.program;
   const ruleId = program.rule.id;
-  const seen = new Set<string>();
+  const seen = new Map<string, number>();
   const findings: Finding[] = [];
+  const messageIsFixed = messageFollowsNodes(program);
   const bindings = createBindings(program.nodeSlotCount, program.listSlotCount);
   evaluatePlan(graph, plan.steps, bindings, (solution) => {
     const shown = Int32Array.from(solution.nodes);
@@ -72,17 +90,22 @@ export function findingsOf(graph: HierarchyGraph, plan: RulePlan, level: Level):
       for (const term of terms) nodes.push(term);
     }
     const fingerprint = fingerprintOf(ruleId, nodes);
-    if (seen.has(fingerprint)) return false;
-    seen.add(fingerprint);
+    const earlier = seen.get(fingerprint);
+    if (earlier !== undefined && messageIsFixed) return false;
     const message = program.message
       .map((part) => (typeof part === 'string' ? part : displayMembers(graph, members(part), part.list)))
       .join('');
+    const focusTerm = graph.term(focus);
+    if (earlier !== undefined) {
+      const kept = findings[earlier];
+      if (compareText(kept.focus, focusTerm) < 0 || (kept.focus === focusTerm && compareText(kept.message, message) <= 0)) return false;
+    }
     const evidence = evidenceOf(graph, plan, solution);
     if (evidence.length === 0) {
       const first = graph.firstStatement(focus);
       if (first !== undefined) evidence.push(first);
     }
-    const finding: Finding = { ruleId, level, focus: graph.term(focus), nodes, message, evidence, fingerprint };
+    const finding: Finding = { ruleId, level, focus: focusTerm, nodes, message, evidence, fingerprint };
     if (program.remove.length > 0) {
       const remove = new StatementSet();
       for (const pattern of program.remove) {
@@ -90,10 +113,22 @@ export function findingsOf(graph: HierarchyGraph, plan: RulePlan, level: Level):
       }
       finding.fix = { remove: remove.statements };
     }
-    findings.push(finding);
+    if (earlier !== undefined) {
+      findings[earlier] = finding;
+    } else {
+      seen.set(fingerprint, findings.length);
+      findings.push(finding);
+    }
     return false;
   });
   return findings;
+}
+
+/** Whether the focus and message read only reported variables, so one fingerprint always has one message. */
+export function messageFollowsNodes(program: RulePlan['program']): boolean {
+  const reported = new Set(program.nodes.map((reference) => `${reference.list} ${reference.slot}`));
+  const references = [program.focus, ...program.message.filter((part) => typeof part !== 'string')];
+  return references.every((reference) => reported.has(`${reference.list} ${reference.slot}`));
 }
 
 /** The statements of every positive path entry's shortest walk, in match order, and of each cycle's closed walk. */

@@ -31,14 +31,14 @@ import { tabulateStatements, type StatementTable } from './statement-table.js';
 const TRUE_FORMS: ReadonlySet<string> = new Set(['true', '1']);
 
 /** Whether a literal is a true boolean: `"true"^^xsd:boolean`, `"true"`, `"1"`. */
-function isTrueLiteral(object: Literal | undefined): boolean {
+export function isTrueLiteral(object: Literal | undefined): boolean {
   if (object === undefined) return false;
   const plain = object.datatype === XSD_STRING || object.datatype === '';
   return (plain || object.datatype === XSD_BOOLEAN) && TRUE_FORMS.has(object.value.trim());
 }
 
 /** A label candidate's rank, lower is better: a language-less or English label first, rdfs:label before skos:prefLabel. */
-function labelRank(predicate: string, literal: Literal): number {
+export function labelRank(predicate: string, literal: Literal): number {
   const language = literal.language.toLowerCase();
   const preferredLanguage = language === '' || language === 'en' || language.startsWith('en-');
   return (preferredLanguage ? 0 : 2) + (predicate === RDFS_LABEL ? 0 : 1);
@@ -310,5 +310,6 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
     prefixes: new PrefixTable(sources),
     stats,
     problems: reader.problems,
+    inputs: { sources, table, axioms },
   });
 }

@@ -1,10 +1,12 @@
 // The HierarchyGraph implementation: read-only views over the interned, CSR-packed parts the builder made.
-import type { InputError, Statement } from '../load/statement.js';
+import type { InputError, LoadedSource, Statement } from '../load/statement.js';
 import { SYMMETRIC_ROLES, type Role } from '../roles/role.js';
 import type { GraphStats, HierarchyGraph, NodeKind } from './hierarchy-graph.js';
 import { findEdge, type RoleAdjacency } from './csr.js';
 import type { PrefixTable } from './display.js';
 import type { TermInterner } from './interner.js';
+import type { AxiomIndex } from './owl-axioms.js';
+import type { StatementTable } from './statement-table.js';
 
 /** The bit of each node kind in the node flag bytes. */
 export const KIND_BITS: Readonly<Record<NodeKind, number>> = {
@@ -19,9 +21,30 @@ export const KIND_BITS: Readonly<Record<NodeKind, number>> = {
 /** The neighbour list of a node without edges of a role; empty, so it cannot be modified. */
 const NO_NEIGHBOURS = new Int32Array(0);
 
+/** What a graph was built from, kept so an edit can be applied to it without reading the data again. */
+export interface BuildInputs {
+  sources: readonly LoadedSource[];
+  table: StatementTable;
+  axioms: AxiomIndex;
+}
+
+/** Terms of nodes an edit made, after the interner's (ids interner.size and up). */
+export interface AddedTerms {
+  terms: readonly string[];
+  ids: ReadonlyMap<string, number>;
+}
+
 /** Everything the builder hands over; nothing of it changes afterwards. */
 export interface GraphParts {
   interner: TermInterner;
+  /** Nodes an edit added after the interner's own (patched graphs only). */
+  addedTerms?: AddedTerms;
+  /** Per node, 1 when an edit removed every statement that made it a node (patched graphs only). */
+  vanished?: Uint8Array;
+  /** What the graph was built from (graphs made by buildHierarchyGraph only). */
+  inputs?: BuildInputs;
+  /** The sources with the edits applied so far, for a rebuild (patched graphs only). */
+  editedSources?: () => LoadedSource[];
   adjacency: Record<Role, RoleAdjacency>;
   /** KIND_BITS per node. */
   flags: Uint8Array;
@@ -43,20 +66,27 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
   readonly problems: readonly InputError[];
 
   /** Wraps the builder's parts. */
-  constructor(private readonly parts: GraphParts) {
-    this.nodeCount = parts.interner.size;
+  constructor(readonly parts: GraphParts) {
+    this.nodeCount = parts.interner.size + (parts.addedTerms?.terms.length ?? 0);
     this.stats = parts.stats;
     this.problems = parts.problems;
   }
 
   /** The IRI or `_:label` of a node. */
   term(id: number): string {
-    return this.parts.interner.term(id);
+    const { interner, addedTerms } = this.parts;
+    return id < interner.size || addedTerms === undefined ? interner.term(id) : addedTerms.terms[id - interner.size];
   }
 
   /** The id of an IRI or `_:label`, or -1. */
   idOf(term: string): number {
-    return this.parts.interner.idOf(term);
+    const id = this.parts.interner.idOf(term);
+    return id >= 0 || this.parts.addedTerms === undefined ? id : (this.parts.addedTerms.ids.get(term) ?? -1);
+  }
+
+  /** Whether an edit removed every statement that made the node a node (its id stays, with no edges and no kinds). */
+  vanished(id: number): boolean {
+    return this.parts.vanished !== undefined && this.parts.vanished[id] === 1;
   }
 
   /** Targets of the node's outgoing edges of a role, ascending (empty for a node without such edges or an unknown id). */

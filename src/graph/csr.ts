@@ -138,3 +138,111 @@ export function findEdge(adjacency: RoleAdjacency, source: number, target: numbe
   }
   return -1;
 }
+
+/** Statements an edit adds to one role: raw edges (source, target, statement index), in statement order. */
+export interface AddedEdges {
+  sources: Int32Array;
+  targets: Int32Array;
+  statements: Int32Array;
+  length: number;
+}
+
+/**
+ * The adjacency with some statements dropped and some added, for `nodeCount` nodes (at least the
+ * old count): what `buildAdjacency` would make from the old edges' remaining statements followed by
+ * the added ones. Nodes the change leaves alone are copied in bulk; only `touched` sources are
+ * merged. O(V + E) array work, no sort of the whole edge list.
+ */
+export function patchAdjacency(
+  old: RoleAdjacency,
+  nodeCount: number,
+  change: { removed: ReadonlySet<number>; added: AddedEdges | undefined; touched: ReadonlySet<number> },
+): RoleAdjacency {
+  const oldCount = old.offsets.length - 1;
+  const addedBySource = new Map<number, { target: number; statement: number }[]>();
+  const added = change.added;
+  for (let index = 0; added !== undefined && index < added.length; index++) {
+    const list = addedBySource.get(added.sources[index]) ?? [];
+    list.push({ target: added.targets[index], statement: added.statements[index] });
+    addedBySource.set(added.sources[index], list);
+  }
+  const touched = [...new Set([...change.touched, ...addedBySource.keys()])].sort((left, right) => left - right);
+  // The merged edges of each touched source: targets ascending, each with its statements in order.
+  const merged = new Map<number, { target: number; statements: number[] }[]>();
+  let edgeDelta = 0;
+  let evidenceDelta = 0;
+  let selfLoops = old.selfLoops;
+  for (const source of touched) {
+    const byTarget = new Map<number, number[]>();
+    let oldEdges = 0;
+    let oldEvidence = 0;
+    if (source < oldCount) {
+      for (let edge = old.offsets[source]; edge < old.offsets[source + 1]; edge++) {
+        oldEdges++;
+        if (old.targets[edge] === source) selfLoops--;
+        for (let index = old.evidenceOffsets[edge]; index < old.evidenceOffsets[edge + 1]; index++) {
+          oldEvidence++;
+          const statement = old.evidence[index];
+          if (change.removed.has(statement)) continue;
+          const list = byTarget.get(old.targets[edge]) ?? [];
+          list.push(statement);
+          byTarget.set(old.targets[edge], list);
+        }
+      }
+    }
+    for (const { target, statement } of addedBySource.get(source) ?? []) {
+      const list = byTarget.get(target) ?? [];
+      // The same statement gave this edge twice (a symmetric self-loop): one statement, as buildAdjacency keeps it.
+      if (list[list.length - 1] !== statement) list.push(statement);
+      byTarget.set(target, list);
+    }
+    const edges = [...byTarget].map(([target, statements]) => ({ target, statements })).sort((left, right) => left.target - right.target);
+    for (const edge of edges) if (edge.target === source) selfLoops++;
+    merged.set(source, edges);
+    edgeDelta += edges.length - oldEdges;
+    evidenceDelta += edges.reduce((sum, edge) => sum + edge.statements.length, 0) - oldEvidence;
+  }
+  const edgeCount = old.targets.length + edgeDelta;
+  const offsets = new Int32Array(nodeCount + 1);
+  const targets = new Int32Array(edgeCount);
+  const evidenceOffsets = new Int32Array(edgeCount + 1);
+  const evidence = new Int32Array(old.evidence.length + evidenceDelta);
+  let edge = 0;
+  let statement = 0;
+  let next = 0;
+  /** Copies the old sources from..to-1 as they are. */
+  const copy = (from: number, to: number): void => {
+    const end = Math.min(to, oldCount);
+    if (from >= end) {
+      for (let source = from; source < to; source++) offsets[source + 1] = edge;
+      return;
+    }
+    const firstEdge = old.offsets[from];
+    const lastEdge = old.offsets[end];
+    targets.set(old.targets.subarray(firstEdge, lastEdge), edge);
+    const firstStatement = old.evidenceOffsets[firstEdge];
+    evidence.set(old.evidence.subarray(firstStatement, old.evidenceOffsets[lastEdge]), statement);
+    const shiftEdges = edge - firstEdge;
+    const shiftStatements = statement - firstStatement;
+    for (let source = from; source < end; source++) offsets[source + 1] = old.offsets[source + 1] + shiftEdges;
+    for (let index = firstEdge; index < lastEdge; index++) evidenceOffsets[index + shiftEdges] = old.evidenceOffsets[index] + shiftStatements;
+    edge += lastEdge - firstEdge;
+    statement += old.evidenceOffsets[lastEdge] - firstStatement;
+    for (let source = end; source < to; source++) offsets[source + 1] = edge;
+  };
+  for (const source of touched) {
+    copy(next, source);
+    for (const { target, statements } of merged.get(source) ?? []) {
+      targets[edge] = target;
+      evidenceOffsets[edge] = statement;
+      for (const row of statements) evidence[statement++] = row;
+      edge++;
+    }
+    offsets[source + 1] = edge;
+    next = source + 1;
+  }
+  copy(next, nodeCount);
+  evidenceOffsets[edge] = statement;
+  const { reverseOffsets, reverseSources } = reverse(nodeCount, offsets, targets);
+  return { offsets, targets, evidenceOffsets, evidence, reverseOffsets, reverseSources, selfLoops };
+}

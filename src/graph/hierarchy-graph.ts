@@ -36,6 +36,11 @@ export interface HierarchyGraph {
   readonly problems?: readonly InputError[];
   /** The IRI or `_:label` of a node. */
   term(id: number): string;
+  /**
+   * Whether the id belongs to a term that an applied edit stripped of every statement: ids never
+   * change, so it stays, with no edges and no kinds, and node enumerations skip it. Absent: never.
+   */
+  vanished?(id: number): boolean;
   /** The id of an IRI or `_:label`, or -1 when the graph has no such node. */
   idOf(term: string): number;
   /** Targets of the node's outgoing edges of a role, ascending (a view: never modify it). */

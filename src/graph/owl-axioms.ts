@@ -21,7 +21,7 @@ import type { StatementTable } from './statement-table.js';
 const OWL_ON_PROPERTY = `${OWL_NAMESPACE}onProperty`;
 
 /** Types that make any term, named or blank, an axiom structure (OWL 2 Mapping to RDF Graphs). */
-const AXIOM_TYPES: ReadonlySet<string> = new Set([OWL_ALL_DISJOINT_CLASSES, OWL_ALL_DIFFERENT, OWL_AXIOM, OWL_RESTRICTION]);
+export const AXIOM_TYPES: ReadonlySet<string> = new Set([OWL_ALL_DISJOINT_CLASSES, OWL_ALL_DIFFERENT, OWL_AXIOM, OWL_RESTRICTION]);
 
 /**
  * Predicates whose blank-node subject is an axiom structure. Only blank subjects count: an OWL 1
