@@ -1,0 +1,75 @@
+// Byte strings appended into fixed-size blocks, addressed by one offset: storage that grows without copying.
+
+/** Bytes per block: 2^20, so an offset is block * 2^20 + place in the block. */
+const BLOCK_BITS = 20;
+const BLOCK_BYTES = 1 << BLOCK_BITS;
+const PLACE_MASK = BLOCK_BYTES - 1;
+
+/**
+ * Append-only storage of byte strings. Each string lies whole inside one block (a string longer
+ * than a block gets blocks of its own), so growing never copies what is stored and never holds an
+ * old and a new copy at once, as a doubling buffer does; at most one block is partly empty.
+ * Offsets are below 2^31, so an arena holds up to 2 GiB.
+ */
+export class ByteArena {
+  /** Block i holds the offsets i * 2^20 up to the next block's; a long string's extra slots repeat its block. */
+  private readonly blocks: Buffer[] = [];
+  /** The next free offset. */
+  private used = 0;
+
+  /** Stores bytes[start..end) and returns its offset. */
+  append(bytes: Uint8Array, start: number, end: number): number {
+    const length = end - start;
+    if (length === 0) return 0;
+    let offset = this.used;
+    if (offset + length > this.blocks.length * BLOCK_BYTES) offset = this.addBlocks(length);
+    const block = this.blocks[offset >>> BLOCK_BITS];
+    block.set(bytes.subarray(start, end), offset & PLACE_MASK);
+    // After a string with blocks of its own, the next string starts a new block.
+    this.used = length > BLOCK_BYTES ? this.blocks.length * BLOCK_BYTES : offset + length;
+    return offset;
+  }
+
+  /** The block that holds the string at `offset`. */
+  blockOf(offset: number): Buffer {
+    return this.blocks[offset >>> BLOCK_BITS];
+  }
+
+  /** Where the string at `offset` starts in its block. */
+  placeOf(offset: number): number {
+    return offset & PLACE_MASK;
+  }
+
+  /** The stored string at `offset`, `length` bytes long, decoded as UTF-8. */
+  text(offset: number, length: number): string {
+    if (length === 0) return '';
+    const place = offset & PLACE_MASK;
+    return this.blocks[offset >>> BLOCK_BITS].toString('utf8', place, place + length);
+  }
+
+  /** Whether the stored string at `offset` (`length` bytes) starts with `prefix`. */
+  startsWith(offset: number, length: number, prefix: Uint8Array): boolean {
+    if (prefix.length > length) return false;
+    if (prefix.length === 0) return true;
+    const place = offset & PLACE_MASK;
+    return this.blocks[offset >>> BLOCK_BITS].compare(prefix, 0, prefix.length, place, place + prefix.length) === 0;
+  }
+
+  /** Bytes the blocks take, used or not. */
+  get allocatedBytes(): number {
+    return this.blocks.length * BLOCK_BYTES;
+  }
+
+  /** Starts a new block (or, for a string longer than a block, enough of them) and returns the offset of its start. */
+  private addBlocks(length: number): number {
+    const count = Math.max(1, Math.ceil(length / BLOCK_BYTES));
+    if ((this.blocks.length + count) * BLOCK_BYTES > 2 ** 31) {
+      throw new RangeError('more than 2 GiB of distinct term and literal text: too large for one run');
+    }
+    // Not from Node's shared pool: each block lives as long as the run.
+    const block = Buffer.allocUnsafeSlow(count * BLOCK_BYTES);
+    const offset = this.blocks.length * BLOCK_BYTES;
+    for (let slot = 0; slot < count; slot++) this.blocks.push(block);
+    return offset;
+  }
+}
