@@ -71,6 +71,22 @@ describe('StatementStore term numbering', () => {
     );
   });
 
+  it('takes about the bytes of its terms plus a few integers each, with no string kept per term', () => {
+    const store = new StatementStore();
+    let keyBytes = 0;
+    for (let index = 0; index < 200_000; index++) {
+      const bytes = Buffer.from(`<https://data.northvale-rail.example/asset/unit/${index}>`, 'utf8');
+      store.termOfBytes(bytes, 1, bytes.length - 1);
+      keyBytes += bytes.length - 2;
+    }
+    const { terms } = store.termBytes;
+    // Keys, then per term at most 4 slots of the hash table kept at most half full (it doubles) and
+    // 4 entry columns grown by half, 4 bytes each, and one partly filled 1 MiB block: the growth rules of ByteTable and ByteArena.
+    expect(terms).toBeGreaterThanOrEqual(keyBytes);
+    expect(terms).toBeLessThanOrEqual(keyBytes + 200_000 * (4 * 4 + 4 * 4 * 1.5) + 2 ** 20);
+    expect(store.text(123_456)).toBe('https://data.northvale-rail.example/asset/unit/123456');
+  });
+
   it('finds a term stated as UTF-8 bytes and one stated as text as the same term', () => {
     fc.assert(
       fc.property(fc.array(termText.filter((text) => !hasLoneSurrogate(text)), { minLength: 1, maxLength: 30 }), (texts) => {
