@@ -4,11 +4,14 @@
 const BLOCK_BITS = 20;
 const BLOCK_BYTES = 1 << BLOCK_BITS;
 const PLACE_MASK = BLOCK_BYTES - 1;
+/** Bytes of the first block at first: a small source's tables stay small. */
+const FIRST_BLOCK_BYTES = 1 << 16;
 
 /**
  * Append-only storage of byte strings. Each string lies whole inside one block (a string longer
  * than a block gets blocks of its own), so growing never copies what is stored and never holds an
- * old and a new copy at once, as a doubling buffer does; at most one block is partly empty.
+ * old and a new copy at once, as a doubling buffer does; at most one block is partly empty. Only
+ * the first block starts smaller, at 64 KiB, and doubles (copied) until it is a whole block.
  * Offsets are below 2^31, so an arena holds up to 2 GiB.
  */
 export class ByteArena {
@@ -16,6 +19,7 @@ export class ByteArena {
   private readonly blocks: Buffer[] = [];
   /** The next free offset. */
   private used = 0;
+  private allocated = 0;
 
   /** Stores bytes[start..end) and returns its offset. */
   append(bytes: Uint8Array, start: number, end: number): number {
@@ -23,8 +27,10 @@ export class ByteArena {
     if (length === 0) return 0;
     let offset = this.used;
     if (offset + length > this.blocks.length * BLOCK_BYTES) offset = this.addBlocks(length);
-    const block = this.blocks[offset >>> BLOCK_BITS];
-    block.set(bytes.subarray(start, end), offset & PLACE_MASK);
+    let block = this.blocks[offset >>> BLOCK_BITS];
+    const place = offset & PLACE_MASK;
+    if (place + length > block.length) block = this.growFirstBlock(place + length);
+    block.set(bytes.subarray(start, end), place);
     // After a string with blocks of its own, the next string starts a new block.
     this.used = length > BLOCK_BYTES ? this.blocks.length * BLOCK_BYTES : offset + length;
     return offset;
@@ -61,7 +67,7 @@ export class ByteArena {
 
   /** Bytes the blocks take, used or not. */
   get allocatedBytes(): number {
-    return this.blocks.length * BLOCK_BYTES;
+    return this.allocated;
   }
 
   /** Starts a new block (or, for a string longer than a block, enough of them) and returns the offset of its start. */
@@ -71,9 +77,21 @@ export class ByteArena {
       throw new RangeError('more than 2 GiB of distinct term and literal text: too large for one run');
     }
     // Not from Node's shared pool: each block lives as long as the run.
-    const block = Buffer.allocUnsafeSlow(count * BLOCK_BYTES);
+    const small = this.blocks.length === 0 && length <= FIRST_BLOCK_BYTES;
+    const block = Buffer.allocUnsafeSlow(small ? FIRST_BLOCK_BYTES : count * BLOCK_BYTES);
+    this.allocated += block.length;
     const offset = this.blocks.length * BLOCK_BYTES;
     for (let slot = 0; slot < count; slot++) this.blocks.push(block);
     return offset;
+  }
+
+  /** Grows the first block, the only one shorter than a block, to hold `needed` bytes, and returns it. */
+  private growFirstBlock(needed: number): Buffer {
+    const old = this.blocks[0];
+    const grown = Buffer.allocUnsafeSlow(Math.min(BLOCK_BYTES, Math.max(needed, old.length * 2)));
+    old.copy(grown, 0, 0, this.used);
+    this.blocks[0] = grown;
+    this.allocated += grown.length - old.length;
+    return grown;
   }
 }

@@ -38,14 +38,29 @@ describe('ByteArena', () => {
     expect(arena.allocatedBytes).toBeLessThanOrEqual((shortBlocks + 4 + 1) * 2 ** 20);
   });
 
-  it('stores a string at a time, without copying what is stored when it grows', () => {
+  it('keeps a string in its block while the arena grows past it, once the first block is full', () => {
     const arena = new ByteArena();
+    // 1,100 KB fill the first block (1 MiB) and start the second.
+    for (let index = 0; index < 1100; index++) arena.append(Buffer.alloc(1000, 'a'), 0, 1000);
     const first = Buffer.from('https://data.northvale-rail.example/def/Bogie');
     const offset = arena.append(first, 0, first.length);
     const blockBefore = arena.blockOf(offset);
     for (let index = 0; index < 5000; index++) arena.append(Buffer.alloc(1000, 'a'), 0, 1000);
     expect(arena.blockOf(offset)).toBe(blockBefore);
     expect(arena.text(offset, first.length)).toBe('https://data.northvale-rail.example/def/Bogie');
+  });
+
+  it('starts small: the first block is 64 KiB and doubles, keeping what it holds, up to 1 MiB', () => {
+    const arena = new ByteArena();
+    const word = Buffer.from('Drehgestell ü', 'utf8');
+    const offset = arena.append(word, 0, word.length);
+    expect(arena.allocatedBytes).toBe(2 ** 16);
+    for (let index = 0; index < 100; index++) arena.append(Buffer.alloc(1000, 'b'), 0, 1000);
+    expect(arena.allocatedBytes).toBe(2 ** 17);
+    for (let index = 0; index < 1500; index++) arena.append(Buffer.alloc(1000, 'c'), 0, 1000);
+    // The first block grew to 1 MiB, then a second one was started.
+    expect(arena.allocatedBytes).toBe(2 * 2 ** 20);
+    expect(arena.text(offset, word.length)).toBe('Drehgestell ü');
   });
 });
 
