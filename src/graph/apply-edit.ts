@@ -187,7 +187,7 @@ class EditPatch {
     const vanished = new Uint8Array(nodeCount);
     const firstStatements = new Int32Array(nodeCount).fill(-1);
     firstStatements.set(this.parts.firstStatements);
-    const labels = [...this.parts.labels, ...new Array<string | undefined>(this.addedTerms.length).fill(undefined)];
+    const labels = new Map<number, string | undefined>(this.parts.editedLabels);
     const kinds: number[] = [];
     const vanishedNodes: number[] = [];
     const nodes = [...this.touchedNodes].sort((left, right) => left - right);
@@ -224,7 +224,7 @@ class EditPatch {
       firstStatements[id] = this.firstRow(found, added);
       let label = found?.label;
       if (added.label !== undefined && (label === undefined || added.labelRank < (found?.labelRank ?? 99))) label = added.label;
-      labels[id] = label;
+      labels.set(id, label);
     }
     const stats = this.stats(adjacency, nodeCount - vanishedNodes.length);
     const statementAt = (row: number): Statement => (row < this.baseRow ? this.inputs.table.statement(row) : this.delta.added[row - this.baseRow]);
@@ -238,7 +238,9 @@ class EditPatch {
       adjacency,
       flags,
       firstStatements,
-      labels,
+      labelLiterals: this.parts.labelLiterals,
+      literalValue: this.parts.literalValue,
+      editedLabels: labels,
       statementAt,
       prefixes: this.parts.prefixes,
       stats,
@@ -432,7 +434,7 @@ class EditPatch {
         if (kind.deprecated && isTrueLiteral(table.literal(row))) fact.deprecated = true;
         if (kind.label && object < 0) {
           const literal = table.literal(row) as Literal;
-          const rank = labelRank(kind.iri, literal);
+          const rank = labelRank(kind.iri, literal.language);
           if (fact.label === undefined || rank < fact.labelRank) {
             fact.label = literal.value;
             fact.labelRank = rank;
@@ -461,7 +463,7 @@ class EditPatch {
         if (predicate === RDF_TYPE && typeof object === 'string' && this.roles.classTypes.has(object)) fact.declared = true;
         if (predicate === OWL_DEPRECATED && this.roles.readsDeprecated && typeof object !== 'string' && isTrueLiteral(object)) fact.deprecated = true;
         if ((predicate === RDFS_LABEL || predicate === SKOS_PREF_LABEL) && typeof object !== 'string') {
-          const rank = labelRank(predicate, object);
+          const rank = labelRank(predicate, object.language);
           if (fact.label === undefined || rank < fact.labelRank) {
             fact.label = object.value;
             fact.labelRank = rank;

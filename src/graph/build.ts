@@ -18,13 +18,13 @@ import type { TermInterner } from './interner.js';
 import {
   type AxiomIndex,
   indexAxioms,
+  BLANK_START,
   isAllDisjointClasses,
-  isBlank,
   isBlankSubject,
   isStructure,
   walkList,
 } from './owl-axioms.js';
-import { inScopeTest } from './scope.js';
+import { inScopeTermTest } from './scope.js';
 import { tabulateStatements, type StatementTable } from './statement-table.js';
 
 /** Lexical forms of a true owl:deprecated (xsd:boolean allows "true" and "1", XSD 1.1 Part 2; from memory). */
@@ -38,8 +38,8 @@ export function isTrueLiteral(object: Literal | undefined): boolean {
 }
 
 /** A label candidate's rank, lower is better: a language-less or English label first, rdfs:label before skos:prefLabel. */
-export function labelRank(predicate: string, literal: Literal): number {
-  const language = literal.language.toLowerCase();
+export function labelRank(predicate: string, literalLanguage: string): number {
+  const language = literalLanguage.toLowerCase();
   const preferredLanguage = language === '' || language === 'en' || language.startsWith('en-');
   return (preferredLanguage ? 0 : 2) + (predicate === RDFS_LABEL ? 0 : 1);
 }
@@ -61,6 +61,9 @@ interface PredicateFacts {
   isLabel: boolean;
 }
 
+/** A term without a label, in the label columns. */
+const NO_LABEL = -1;
+
 /** Bits of the reader's per-term marks. */
 const ROOT_TERM = 1;
 const CLASS_TYPE_TERM = 2;
@@ -70,8 +73,8 @@ class StatementReader {
   readonly collectors = Object.fromEntries(ROLES.map((role) => [role, new EdgeCollector()])) as Record<Role, EdgeCollector>;
   readonly declaredClasses: number[] = [];
   readonly deprecated: number[] = [];
-  /** Best label so far per term number, and its rank (see labelRank). */
-  readonly labelValues: (string | undefined)[];
+  /** Literal number of the best label so far per term number (-1: none), and its rank (see labelRank). */
+  readonly labelLiterals: Int32Array;
   readonly labelRanks: Int8Array;
   readonly problems: InputError[] = [];
   readonly roleStatements = emptyRoleCounts();
@@ -90,7 +93,7 @@ class StatementReader {
     const { terms } = table;
     this.predicateFacts = table.predicateIris.map((iri) => this.factsOf(iri));
     this.termMarks = new Uint8Array(terms.termCount);
-    this.labelValues = new Array<string | undefined>(terms.termCount).fill(undefined);
+    this.labelLiterals = new Int32Array(terms.termCount).fill(NO_LABEL);
     this.labelRanks = new Int8Array(terms.termCount);
     for (const root of scope.roots) this.mark(root, ROOT_TERM);
     for (const classType of roles.classTypes) this.mark(classType, CLASS_TYPE_TERM);
@@ -159,9 +162,7 @@ class StatementReader {
     if (facts.isDeprecated && this.roles.readsDeprecated && isTrueLiteral(this.table.literal(row))) {
       this.deprecated.push(terms.makeNode(subject));
     }
-    if (facts.isLabel && object < 0) {
-      this.offerLabel(subject, facts.iri, this.table.literal(row) as Literal);
-    }
+    if (facts.isLabel && object < 0) this.offerLabel(subject, facts.iri, -2 - object);
     if ((this.termMarks[subject] & ROOT_TERM) !== 0) terms.makeNode(subject);
     if (object >= 0 && !objectIsAxiom && (this.termMarks[object] & ROOT_TERM) !== 0) terms.makeNode(object);
   }
@@ -202,10 +203,11 @@ class StatementReader {
     if (ids.length > 1) this.roleStatements['disjoint-with']++;
   }
 
-  private offerLabel(subject: number, predicate: string, literal: Literal): void {
-    const rank = labelRank(predicate, literal);
-    if (this.labelValues[subject] === undefined || rank < this.labelRanks[subject]) {
-      this.labelValues[subject] = literal.value;
+  /** Keeps literal k as the subject's label when it ranks better than the one kept so far; its text is made only when shown. */
+  private offerLabel(subject: number, predicate: string, literal: number): void {
+    const rank = labelRank(predicate, this.table.literalKind(literal).language);
+    if (this.labelLiterals[subject] === NO_LABEL || rank < this.labelRanks[subject]) {
+      this.labelLiterals[subject] = literal;
       this.labelRanks[subject] = rank;
     }
   }
@@ -229,7 +231,7 @@ function nodeFlags(options: {
   }
   const instanceOf = adjacency['instance-of'];
   const subclassOf = adjacency['subclass-of'];
-  const inScope = inScopeTest(scope.prefixes);
+  const inScope = inScopeTermTest(scope.prefixes, terms);
   for (let id = 0; id < flags.length; id++) {
     const isClass =
       instanceOf.reverseOffsets[id + 1] > instanceOf.reverseOffsets[id] ||
@@ -238,8 +240,10 @@ function nodeFlags(options: {
     if (isClass) flags[id] |= KIND_BITS.class;
     const hasType = instanceOf.offsets[id + 1] > instanceOf.offsets[id];
     if (hasType && (flags[id] & KIND_BITS.class) === 0) flags[id] |= KIND_BITS.individual;
-    const term = terms.term(id);
-    if (isBlank(term) ? isBlankSubject(axioms, terms.numberOfNode(id)) : inScope(term)) flags[id] |= KIND_BITS['in-scope'];
+    // Read from the term's bytes: making 3 million texts here would cost more than the rest of the loop.
+    const termNumber = terms.numberOfNode(id);
+    const blank = terms.termStartsWith(termNumber, BLANK_START);
+    if (blank ? isBlankSubject(axioms, termNumber) : inScope(termNumber)) flags[id] |= KIND_BITS['in-scope'];
   }
   return flags;
 }
@@ -261,12 +265,12 @@ function firstStatements(table: StatementTable): Int32Array {
   return asSubject;
 }
 
-/** Labels by node id, from the reader's labels by term number. */
-function nodeLabels(reader: StatementReader, terms: TermInterner): (string | undefined)[] {
-  const labels = new Array<string | undefined>(terms.size).fill(undefined);
-  for (let termNumber = 0; termNumber < reader.labelValues.length; termNumber++) {
+/** Label literal numbers by node id (-1: none), from the reader's by term number. */
+function nodeLabels(reader: StatementReader, terms: TermInterner): Int32Array {
+  const labels = new Int32Array(terms.size).fill(NO_LABEL);
+  for (let termNumber = 0; termNumber < reader.labelLiterals.length; termNumber++) {
     const id = terms.nodeOf(termNumber);
-    if (id >= 0) labels[id] = reader.labelValues[termNumber];
+    if (id >= 0) labels[id] = reader.labelLiterals[termNumber];
   }
   return labels;
 }
@@ -305,7 +309,8 @@ export function buildHierarchyGraph(sources: LoadedSource[], roles: RoleMap, sco
     adjacency,
     flags: nodeFlags({ reader, terms, adjacency, axioms, scope }),
     firstStatements: firstStatements(table),
-    labels: nodeLabels(reader, terms),
+    labelLiterals: nodeLabels(reader, terms),
+    literalValue: table.literalValue,
     statementAt: table.statement,
     prefixes: new PrefixTable(sources),
     stats,

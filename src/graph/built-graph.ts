@@ -50,8 +50,12 @@ export interface GraphParts {
   flags: Uint8Array;
   /** Index into `statements` of the node's first statement, or -1. */
   firstStatements: Int32Array;
-  /** Label per node id, undefined when none was stated. */
-  labels: readonly (string | undefined)[];
+  /** The literal number of each node's label, -1 when none was stated. */
+  labelLiterals: Int32Array;
+  /** The lexical form of a literal number. */
+  literalValue: (literal: number) => string;
+  /** Labels an edit decided for the nodes it touched, undefined for none (patched graphs only); they win over `labelLiterals`. */
+  editedLabels?: ReadonlyMap<number, string | undefined>;
   /** The statement of a row of the run's statement table; evidence indices are such rows. */
   statementAt: (row: number) => Statement;
   prefixes: PrefixTable;
@@ -138,7 +142,11 @@ export class BuiltHierarchyGraph implements HierarchyGraph {
 
   /** The node's rdfs:label or skos:prefLabel, when stated. */
   label(id: number): string | undefined {
-    return this.validId(id) ? this.parts.labels[id] : undefined;
+    if (!this.validId(id)) return undefined;
+    const edited = this.parts.editedLabels;
+    if (edited !== undefined && edited.has(id)) return edited.get(id);
+    const literal = id < this.parts.labelLiterals.length ? this.parts.labelLiterals[id] : -1;
+    return literal < 0 ? undefined : this.parts.literalValue(literal);
   }
 
   private validId(id: number): boolean {

@@ -1,33 +1,17 @@
 // Term interner: every IRI and blank-node label numbered once, and the ones that become nodes given dense node ids.
 
-/** Terms numbered 0..n-1 in first-seen order: what a TermInterner builds on. */
+/** Terms numbered 0..n-1 in first-seen order, as a StatementStore numbers them: what a TermInterner builds on. */
 export interface TermNumbering {
   /** The number of a term, numbering it when new. */
   term(text: string): number;
   /** The number of a term, or -1 when it has none. */
   termNumberOf(text: string): number;
-  /** Term number → text. */
-  readonly termTexts: readonly string[];
-}
-
-/** A TermNumbering kept in a Map. */
-class MapNumbering implements TermNumbering {
-  private readonly numbers = new Map<string, number>();
-  readonly termTexts: string[] = [];
-
-  term(text: string): number {
-    let termNumber = this.numbers.get(text);
-    if (termNumber === undefined) {
-      termNumber = this.termTexts.length;
-      this.numbers.set(text, termNumber);
-      this.termTexts.push(text);
-    }
-    return termNumber;
-  }
-
-  termNumberOf(text: string): number {
-    return this.numbers.get(text) ?? -1;
-  }
+  /** The text of a term number. */
+  text(termNumber: number): string;
+  /** Whether a term's text starts with the text whose UTF-8 bytes are `prefix` (one without lone surrogates). */
+  termStartsWith(termNumber: number, prefix: Uint8Array): boolean;
+  /** How many terms are numbered. */
+  readonly termCount: number;
 }
 
 /** The node id of a term number that is not a node. */
@@ -37,14 +21,16 @@ const NOT_A_NODE = -1;
  * Numbers terms 0..termCount-1 in first-seen order, and gives the terms that become graph nodes ids
  * 0..size-1 in the order they are made nodes. A number or id never changes once given. Keeping
  * both lets the builder look each term up in a map once per statement and work with integers after.
+ * Texts stay with the numbering: a node's text is made when it is asked for.
  */
 export class TermInterner {
-  /** Starts from terms numbered already (a StatementStore is a TermNumbering), or from none. */
-  constructor(private readonly numbering: TermNumbering = new MapNumbering()) {}
+  /** Starts from terms numbered already (a StatementStore is a TermNumbering). */
+  constructor(private readonly numbering: TermNumbering) {}
 
   private nodeOfNumber = new Int32Array(1024).fill(NOT_A_NODE);
-  private readonly nodeTerms: string[] = [];
-  private readonly nodeNumbers: number[] = [];
+  /** Term number by node id; the first `nodeCount` entries are used. */
+  private nodeNumbers = new Int32Array(1024);
+  private nodeCount = 0;
 
   /** The number of a term, giving it the next free number when it is new. */
   number(term: string): number {
@@ -58,12 +44,17 @@ export class TermInterner {
 
   /** The text of a term number. */
   text(termNumber: number): string {
-    return this.numbering.termTexts[termNumber];
+    return this.numbering.text(termNumber);
+  }
+
+  /** Whether a term's text starts with the text whose UTF-8 bytes are `prefix` (one without lone surrogates). */
+  termStartsWith(termNumber: number, prefix: Uint8Array): boolean {
+    return this.numbering.termStartsWith(termNumber, prefix);
   }
 
   /** How many terms have numbers. */
   get termCount(): number {
-    return this.numbering.termTexts.length;
+    return this.numbering.termCount;
   }
 
   /** The node id of a term number, making the term the next node when it is not one yet. */
@@ -71,10 +62,14 @@ export class TermInterner {
     if (termNumber >= this.nodeOfNumber.length) this.grow(termNumber + 1);
     let id = this.nodeOfNumber[termNumber];
     if (id === NOT_A_NODE) {
-      id = this.nodeTerms.length;
+      id = this.nodeCount++;
+      if (id === this.nodeNumbers.length) {
+        const grown = new Int32Array(this.nodeNumbers.length * 2);
+        grown.set(this.nodeNumbers);
+        this.nodeNumbers = grown;
+      }
       this.nodeOfNumber[termNumber] = id;
-      this.nodeTerms.push(this.numbering.termTexts[termNumber]);
-      this.nodeNumbers.push(termNumber);
+      this.nodeNumbers[id] = termNumber;
     }
     return id;
   }
@@ -100,14 +95,15 @@ export class TermInterner {
     return termNumber < 0 ? NOT_A_NODE : this.nodeOf(termNumber);
   }
 
-  /** The term of a node id. */
+  /** The term of a node id (made from its bytes: a new string each time). */
   term(id: number): string {
-    return this.nodeTerms[id];
+    // An id that is not a node has no text, as before, when texts were read from an array.
+    return id >= 0 && id < this.nodeCount ? this.numbering.text(this.nodeNumbers[id]) : (undefined as unknown as string);
   }
 
   /** How many terms are nodes. */
   get size(): number {
-    return this.nodeTerms.length;
+    return this.nodeCount;
   }
 
   private grow(minimum: number): void {

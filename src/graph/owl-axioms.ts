@@ -53,6 +53,9 @@ export interface AxiomIndex {
   listRest: Map<number, number[]>;
 }
 
+/** The bytes every blank node's text starts with (see `isBlank`). */
+export const BLANK_START = Buffer.from('_:', 'utf8');
+
 /** Whether a term is a blank node label. */
 export function isBlank(term: string): boolean {
   return term.startsWith('_:');
@@ -104,7 +107,7 @@ export function indexAxioms(table: StatementTable): AxiomIndex {
   }
   const blankTerms = new Uint8Array(terms.termCount);
   for (let termNumber = 0; termNumber < blankTerms.length; termNumber++) {
-    if (isBlank(terms.text(termNumber))) blankTerms[termNumber] = 1;
+    if (terms.termStartsWith(termNumber, BLANK_START)) blankTerms[termNumber] = 1;
   }
   // A blank node whose only statements were not kept is still a subject of the linted files.
   for (const subject of table.unkeptBlankSubjects) index.termFlags[subject] |= BLANK_SUBJECT;

@@ -1,4 +1,5 @@
 // The statements of a run as integer columns: term numbers of subject and object, and a predicate number.
+import type { LiteralKind } from '../load/literal-table.js';
 import type { Literal, LoadedSource, Statement } from '../load/statement.js';
 import { StatementStore } from '../load/statement-store.js';
 import { TermInterner } from './interner.js';
@@ -14,6 +15,10 @@ export interface StatementTable {
   statement(row: number): Statement;
   /** The literal object of a row, or undefined when its object is a term. */
   literal(row: number): Literal | undefined;
+  /** The datatype and language of literal k, the object value `-2 - k` (a shared object: never modify it). */
+  literalKind(literal: number): LiteralKind;
+  /** The lexical form of literal k, the object value `-2 - k`. */
+  literalValue(literal: number): string;
   terms: TermInterner;
   subjects: Int32Array;
   objects: Int32Array;
@@ -40,6 +45,8 @@ export function tabulateStatements(sources: readonly LoadedSource[]): StatementT
     rowCount: store.size,
     statement: (row) => store.statement(row),
     literal: (row) => store.literalOf(row),
+    literalKind: (literal) => store.literalKind(literal),
+    literalValue: (literal) => store.literalValue(literal),
     terms,
     subjects: store.subjects,
     objects: store.objects,

@@ -1,13 +1,15 @@
 // A hash table keyed by byte ranges, so a term seen before is found without decoding it to a string.
+import { ByteArena } from './byte-arena.js';
 
 const EMPTY = -1;
 /** How many bytes from a key's end go into its hash; IRIs of one dump share long starts and differ at the end. */
 const HASHED_TAIL = 32;
 
 /**
- * Maps byte strings to numbers. Keys are copied into one arena; lookups hash the key's length and
- * last bytes, then compare the whole key natively (`Buffer.compare`), so finding a known term
- * costs no allocation. Open addressing with linear probing, kept at most half full.
+ * Maps byte strings to numbers. Keys are copied into a ByteArena, in the order they are set, and
+ * can be read back by that entry number; lookups hash the key's length and last bytes, then
+ * compare the whole key, so finding a known term costs no allocation. Open addressing with linear
+ * probing, kept at most half full.
  */
 export class ByteTable {
   private slots: Int32Array = new Int32Array(1 << 12).fill(EMPTY);
@@ -15,9 +17,13 @@ export class ByteTable {
   private starts: Int32Array = new Int32Array(1 << 11);
   private lengths: Int32Array = new Int32Array(1 << 11);
   private values: Int32Array = new Int32Array(1 << 11);
-  private arena = Buffer.alloc(1 << 16);
-  private arenaUsed = 0;
+  private readonly arena = new ByteArena();
   private count = 0;
+
+  /** How many keys are stored; entry numbers are 0..size-1 in the order they were set. */
+  get size(): number {
+    return this.count;
+  }
 
   /** The number stored for bytes[start..end), or -1 when the key is not in the table. */
   get(bytes: Buffer, start: number, end: number): number {
@@ -32,33 +38,42 @@ export class ByteTable {
     }
   }
 
-  /** Stores a number for bytes[start..end), which must not be in the table yet. */
-  set(bytes: Buffer, start: number, end: number, value: number): void {
+  /** Stores a number for bytes[start..end), which must not be in the table yet, and returns the key's entry number. */
+  set(bytes: Buffer, start: number, end: number, value: number): number {
     if ((this.count + 1) * 2 > this.slots.length) this.growSlots();
     if (this.count === this.values.length) this.growEntries();
-    const length = end - start;
-    if (this.arenaUsed + length > this.arena.length) {
-      // Growing by half, not doubling: for millions of terms the arena is one of the largest buffers of a run.
-      const grown = Buffer.allocUnsafe(Math.max(Math.ceil(this.arena.length * 1.5), this.arenaUsed + length));
-      this.arena.copy(grown, 0, 0, this.arenaUsed);
-      this.arena = grown;
-    }
-    bytes.copy(this.arena, this.arenaUsed, start, end);
     const entry = this.count++;
     const hash = hashOf(bytes, start, end);
     this.hashes[entry] = hash;
-    this.starts[entry] = this.arenaUsed;
-    this.lengths[entry] = length;
+    this.starts[entry] = this.arena.append(bytes, start, end);
+    this.lengths[entry] = end - start;
     this.values[entry] = value;
-    this.arenaUsed += length;
     this.place(entry, hash);
+    return entry;
   }
 
-  /** Whether bytes[start..end) equal the arena's bytes from `entryStart`, compared from the end, where IRIs differ. */
+  /** The key of an entry, decoded as UTF-8. */
+  keyText(entry: number): string {
+    return this.arena.text(this.starts[entry], this.lengths[entry]);
+  }
+
+  /** Whether the key of an entry starts with the bytes of `prefix`. */
+  keyStartsWith(entry: number, prefix: Uint8Array): boolean {
+    return this.arena.startsWith(this.starts[entry], this.lengths[entry], prefix);
+  }
+
+  /** Bytes the table takes: its arena's blocks and its columns. */
+  get allocatedBytes(): number {
+    return this.arena.allocatedBytes + 4 * (this.slots.length + 4 * this.values.length);
+  }
+
+  /** Whether bytes[start..end) equal the key stored from `entryStart`, compared from the end, where IRIs differ. */
   private sameBytes(bytes: Buffer, start: number, end: number, entryStart: number): boolean {
-    const { arena } = this;
-    for (let index = end - 1, other = entryStart + (end - start) - 1; index >= start; index--, other--) {
-      if (bytes[index] !== arena[other]) return false;
+    if (end === start) return true;
+    const block = this.arena.blockOf(entryStart);
+    const place = this.arena.placeOf(entryStart);
+    for (let index = end - 1, other = place + (end - start) - 1; index >= start; index--, other--) {
+      if (bytes[index] !== block[other]) return false;
     }
     return true;
   }

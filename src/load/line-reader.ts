@@ -2,6 +2,7 @@
 import { isUtf8 } from 'node:buffer';
 import type { InputError, LoadedSource, RdfFormat } from './statement.js';
 import { DEFAULT_GRAPH, type StatementStore } from './statement-store.js';
+import type { LiteralKind } from './literal-table.js';
 import { ByteTable } from './byte-table.js';
 import { scanLine, skipSpace, type ScannedLine } from './line-scan.js';
 import { parseSource } from './parse.js';
@@ -188,7 +189,7 @@ export class LineReader {
       this.statementCount++;
       this.unkeptCount++;
       if (bytes[found.subjectStart] === UNDERSCORE) {
-        this.options.store.unkeptBlankSubjects.add(this.termNumber(bytes, found.subjectStart, found.subjectEnd, true));
+        this.options.store.unkeptBlankSubjects.add(this.termNumber(bytes, found.subjectStart, found.subjectEnd));
       }
     } else if (!this.keepLine(bytes, found, predicate.number, first - start + 1)) {
       this.readWithN3(bytes.toString('utf8', start, end));
@@ -203,19 +204,15 @@ export class LineReader {
     let object: number;
     if (found.literalEnd >= 0) {
       if (found.literalEscaped) return false;
-      const datatype = found.datatypeStart >= 0 ? this.text(bytes, found.datatypeStart, found.datatypeEnd, found.ascii) : undefined;
-      const language = found.languageStart >= 0 ? bytes.toString('latin1', found.languageStart, found.languageEnd).toLowerCase() : '';
-      object = store.literal({
-        value: this.text(bytes, found.objectStart + 1, found.literalEnd, found.ascii),
-        datatype: datatype ?? (language === '' ? XSD_STRING : RDF_LANG_STRING),
-        language,
-      });
+      // The lexical form is stored as the bytes between the quotes; what follows them is read once per distinct suffix.
+      const kind = store.literalKindOfSuffix(bytes, found.literalEnd + 1, found.objectEnd, () => literalKind(bytes, found));
+      object = store.literalOfBytes(bytes, found.objectStart + 1, found.literalEnd, kind);
     } else {
-      object = this.termNumber(bytes, found.objectStart, found.objectEnd, found.ascii);
+      object = this.termNumber(bytes, found.objectStart, found.objectEnd);
     }
-    const graph = found.graphStart < 0 ? DEFAULT_GRAPH : this.termNumber(bytes, found.graphStart, found.graphEnd, found.ascii);
+    const graph = found.graphStart < 0 ? DEFAULT_GRAPH : this.termNumber(bytes, found.graphStart, found.graphEnd);
     store.addRow({
-      subject: this.termNumber(bytes, found.subjectStart, found.subjectEnd, found.ascii),
+      subject: this.termNumber(bytes, found.subjectStart, found.subjectEnd),
       predicate,
       object,
       graph,
@@ -240,10 +237,10 @@ export class LineReader {
     return known;
   }
 
-  /** The store's number of a written term, decoded to text only the first time it is met. */
-  private termNumber(bytes: Buffer, start: number, end: number, ascii: boolean): number {
+  /** The store's number of a written term; an IRI is never decoded, a blank node label only the first time it is met. */
+  private termNumber(bytes: Buffer, start: number, end: number): number {
     // An IRI's bytes between its brackets are its text; a blank node's text adds the file's prefix.
-    if (bytes[start] !== UNDERSCORE) return this.options.store.termOfBytes(bytes, start + 1, end - 1, ascii);
+    if (bytes[start] !== UNDERSCORE) return this.options.store.termOfBytes(bytes, start + 1, end - 1);
     let termNumber = this.blankTable.get(bytes, start, end);
     if (termNumber < 0) {
       termNumber = this.options.store.term(this.blankText(bytes, start, end));
@@ -321,6 +318,13 @@ const LANGUAGE_STRING_TYPES = [RDF_LANG_STRING, RDF_DIR_LANG_STRING].map((iri) =
 /** Whether bytes[start..end) spell rdf:langString or rdf:dirLangString. */
 function isLanguageStringType(bytes: Buffer, start: number, end: number): boolean {
   return LANGUAGE_STRING_TYPES.some((type) => type.length === end - start && bytes.compare(type, 0, type.length, start, end) === 0);
+}
+
+/** The datatype and language of a scanned literal, as n3 gives them: a language tag in lower case, rdf:langString for it. */
+function literalKind(bytes: Buffer, found: ScannedLine): LiteralKind {
+  const datatype = found.datatypeStart >= 0 ? bytes.toString('utf8', found.datatypeStart, found.datatypeEnd) : undefined;
+  const language = found.languageStart >= 0 ? bytes.toString('latin1', found.languageStart, found.languageEnd).toLowerCase() : '';
+  return { datatype: datatype ?? (language === '' ? XSD_STRING : RDF_LANG_STRING), language };
 }
 
 function emptyScan(): ScannedLine {

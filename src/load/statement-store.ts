@@ -1,25 +1,12 @@
 // Compact storage of the statements a run keeps: term numbers and positions as integer columns.
 import type { Literal, Statement } from './statement.js';
 import { ByteTable } from './byte-table.js';
+import { IntColumn } from './int-column.js';
+import { LiteralTable, type LiteralKind } from './literal-table.js';
+import { writeTermBytes } from './term-bytes.js';
 
 /** The graph column's value for a statement in the default graph. */
 export const DEFAULT_GRAPH = -1;
-
-/** Rows a column holds before it first grows. */
-const INITIAL_ROWS = 1024;
-
-/** A growable column of 32-bit integers. */
-class IntColumn {
-  values = new Int32Array(INITIAL_ROWS);
-
-  /** Makes room for `rows` values, growing by half so that appending stays amortised constant time. */
-  reserve(rows: number): void {
-    if (rows <= this.values.length) return;
-    const grown = new Int32Array(Math.max(rows, Math.ceil(this.values.length * 1.5)));
-    grown.set(this.values);
-    this.values = grown;
-  }
-}
 
 /**
  * A column whose rows mostly hold one default value (a subject in column 1, an object on the
@@ -51,15 +38,17 @@ class OptionalColumn {
  * Every kept statement of a run, one row each: subject, predicate, object and graph as numbers,
  * and the file, line, column and object line of where it was stated (the file by row ranges, and
  * column, object line and graph only where they differ from 1, the line and the default graph). Terms (IRIs and `_:label`s)
- * are numbered once in first-seen order; a literal object is stored as `-2 - k` for the k-th
- * literal. Full `Statement` objects are made only for the rows that are asked for (evidence of
+ * are numbered once in first-seen order and kept as their UTF-8 bytes, decoded to a string only
+ * when asked for (`text`); a literal object is stored as `-2 - k` for the k-th literal of a
+ * LiteralTable. Full `Statement` objects are made only for the rows that are asked for (evidence of
  * reported findings), and the same row always gives the same object.
  */
 export class StatementStore {
-  /** Term number → term text. */
-  readonly termTexts: string[] = [];
-  /** UTF-8 bytes of a term's text → term number, so the fast path finds a term without decoding it. */
+  /** UTF-8 bytes of a term's text → term number (its entry number), so the fast path finds a term without decoding it. */
   private readonly termIndex = new ByteTable();
+  /** Texts with a lone surrogate, whose bytes do not decode back to them (see `writeTermBytes`), by term number. */
+  private readonly oddTexts = new Map<number, string>();
+  private readonly literals = new LiteralTable();
   private scratch = Buffer.alloc(4096);
   /** Each distinct predicate IRI once, in first-seen order. */
   readonly predicateIris: string[] = [];
@@ -68,11 +57,6 @@ export class StatementStore {
   /** Term numbers of blank nodes that are the subject of a statement that was not kept. */
   readonly unkeptBlankSubjects = new Set<number>();
   private readonly predicateNumbers = new Map<string, number>();
-  private readonly literalValues: string[] = [];
-  private readonly literalDatatypes: string[] = [];
-  private readonly literalLanguages: string[] = [];
-  // Datatype and language strings are shared, so a million labels hold one copy of "en".
-  private readonly sharedStrings = new Map<string, string>();
   private readonly columns = {
     subject: new IntColumn(),
     predicate: new IntColumn(),
@@ -93,41 +77,63 @@ export class StatementStore {
     return this.rows;
   }
 
+  /** How many terms are numbered. */
+  get termCount(): number {
+    return this.termIndex.size;
+  }
+
   /** The number of a term, numbering it when new. */
   term(text: string): number {
-    const length = this.encode(text);
+    const { length, loneSurrogate } = this.encode(text);
     const known = this.termIndex.get(this.scratch, 0, length);
     if (known >= 0) return known;
-    return this.addTerm(this.scratch, 0, length, text);
+    const termNumber = this.termIndex.size;
+    this.termIndex.set(this.scratch, 0, length, termNumber);
+    if (loneSurrogate) this.oddTexts.set(termNumber, text);
+    return termNumber;
   }
 
   /** The number of a term, or -1 when it has none. */
   termNumberOf(text: string): number {
-    const length = this.encode(text);
+    const { length } = this.encode(text);
     return this.termIndex.get(this.scratch, 0, length);
   }
 
-  /**
-   * The number of the term whose text is the UTF-8 bytes[start..end), numbering it when new; the
-   * bytes are decoded only then (latin1 when `ascii`, which gives the same text faster).
-   */
-  termOfBytes(bytes: Buffer, start: number, end: number, ascii: boolean): number {
+  /** The number of the term whose text is the UTF-8 bytes[start..end), numbering it when new (nothing is decoded). */
+  termOfBytes(bytes: Buffer, start: number, end: number): number {
     const known = this.termIndex.get(bytes, start, end);
     if (known >= 0) return known;
-    return this.addTerm(bytes, start, end, bytes.toString(ascii ? 'latin1' : 'utf8', start, end));
-  }
-
-  private addTerm(bytes: Buffer, start: number, end: number, text: string): number {
-    const termNumber = this.termTexts.length;
+    const termNumber = this.termIndex.size;
     this.termIndex.set(bytes, start, end, termNumber);
-    this.termTexts.push(text);
     return termNumber;
   }
 
-  /** Writes a text's UTF-8 bytes into the scratch buffer and returns their length. */
-  private encode(text: string): number {
+  /** The text of a term number, decoded from its bytes (a new string each time). */
+  text(termNumber: number): string {
+    if (this.oddTexts.size > 0) {
+      const odd = this.oddTexts.get(termNumber);
+      if (odd !== undefined) return odd;
+    }
+    return this.termIndex.keyText(termNumber);
+  }
+
+  /**
+   * Whether a term's text starts with the text whose UTF-8 bytes are `prefix`, read from the bytes.
+   * For a prefix without lone surrogates this is `text(termNumber).startsWith(prefix text)`.
+   */
+  termStartsWith(termNumber: number, prefix: Uint8Array): boolean {
+    return this.termIndex.keyStartsWith(termNumber, prefix);
+  }
+
+  /** Bytes the term index and the literals take (arenas and columns), for measuring. */
+  get termBytes(): { terms: number; literals: number } {
+    return { terms: this.termIndex.allocatedBytes, literals: this.literals.allocatedBytes };
+  }
+
+  /** Writes a text's bytes into the scratch buffer (see `writeTermBytes`). */
+  private encode(text: string): { length: number; loneSurrogate: boolean } {
     if (text.length * 3 > this.scratch.length) this.scratch = Buffer.alloc(text.length * 3);
-    return this.scratch.write(text, 0, 'utf8');
+    return writeTermBytes(text, this.scratch);
   }
 
   /** The number of a predicate IRI, numbering it when new. */
@@ -162,10 +168,17 @@ export class StatementStore {
 
   /** The object value of a literal, to pass to `addRow`. */
   literal(literal: Literal): number {
-    this.literalValues.push(literal.value);
-    this.literalDatatypes.push(this.shared(literal.datatype));
-    this.literalLanguages.push(this.shared(literal.language));
-    return -2 - (this.literalValues.length - 1);
+    return -2 - this.literals.add(literal);
+  }
+
+  /** The object value of a literal whose lexical form is the UTF-8 bytes[start..end), of a kind from `literalKindOfSuffix`. */
+  literalOfBytes(bytes: Buffer, start: number, end: number, kind: number): number {
+    return -2 - this.literals.addBytes(bytes, start, end, kind);
+  }
+
+  /** The kind number of a literal written with the suffix bytes[start..end) (see `LiteralTable.kindOfSuffix`). */
+  literalKindOfSuffix(bytes: Buffer, start: number, end: number, decode: () => LiteralKind): number {
+    return this.literals.kindOfSuffix(bytes, start, end, decode);
   }
 
   /** Appends one statement of the file opened last, from numbers given by `term`, `predicate` and `literal`. */
@@ -217,9 +230,17 @@ export class StatementStore {
   /** The literal object of a row, or undefined when its object is a term. */
   literalOf(row: number): Literal | undefined {
     const object = this.columns.object.values[row];
-    if (object >= 0) return undefined;
-    const index = -2 - object;
-    return { value: this.literalValues[index], datatype: this.literalDatatypes[index], language: this.literalLanguages[index] };
+    return object >= 0 ? undefined : this.literals.literal(-2 - object);
+  }
+
+  /** The datatype and language of literal k (the object value `-2 - k`); a shared object, never modify it. */
+  literalKind(literal: number): LiteralKind {
+    return this.literals.kind(literal);
+  }
+
+  /** The lexical form of literal k (the object value `-2 - k`). */
+  literalValue(literal: number): string {
+    return this.literals.value(literal);
   }
 
   /** The statement of a row, made once and then kept. */
@@ -231,10 +252,10 @@ export class StatementStore {
       const graph = this.graphs.get(row);
       const line = columns.line.values[row];
       statement = {
-        subject: this.termTexts[columns.subject.values[row]],
+        subject: this.text(columns.subject.values[row]),
         predicate: this.predicateIris[columns.predicate.values[row]],
-        object: object >= 0 ? this.termTexts[object] : (this.literalOf(row) as Literal),
-        graph: graph === DEFAULT_GRAPH ? '' : this.termTexts[graph],
+        object: object >= 0 ? this.text(object) : (this.literalOf(row) as Literal),
+        graph: graph === DEFAULT_GRAPH ? '' : this.text(graph),
         position: { file: this.files[this.fileOf(row)], line, column: this.subjectColumns.get(row) },
         objectLine: line + this.objectLineOffsets.get(row),
       };
@@ -248,12 +269,5 @@ export class StatementStore {
     const statements: Statement[] = [];
     for (let row = start; row < end; row++) statements.push(this.statement(row));
     return statements;
-  }
-
-  private shared(text: string): string {
-    const known = this.sharedStrings.get(text);
-    if (known !== undefined) return known;
-    this.sharedStrings.set(text, text);
-    return text;
   }
 }
