@@ -40,6 +40,8 @@ export function readSparqlEdit(file: string, text: string, options: { baseIri: s
   } catch (error) {
     return { error: syntaxError(file, text, error, options.baseIri) };
   }
+  const ambiguous = ambiguousTerm(file, text);
+  if (ambiguous !== undefined) return { error: ambiguous };
   const written = readUpdateText(text, options.baseIri);
   if ('error' in written) return { error: { file, ...written.error, message: `the edit could not be read: ${written.error.message}`, hint: EDIT_HINT } };
   if (written.operations.length !== parsed.updates.length) {
@@ -52,6 +54,35 @@ export function readSparqlEdit(file: string, text: string, options: { baseIri: s
     operations.push(operation);
   }
   return { file, operations };
+}
+
+/**
+ * A term sparqljs 3.7.4 reads otherwise than the standards, as an error at its place: a prefixed
+ * name with a backslash escape (kept in the IRI; SPARQL 1.1 §19.8 PN_LOCAL_ESC drops it), and a
+ * relative IRI with `.` or `..` segments (not removed; RFC 3986 §5.2.4 removes them).
+ */
+function ambiguousTerm(file: string, text: string): InputError | undefined {
+  for (const token of tokenize(text).tokens) {
+    if (token.kind === 'pname' && token.text.includes('\\')) {
+      return {
+        file,
+        line: token.line,
+        column: token.column,
+        message: `the prefixed name ${token.text} has a backslash escape, which sparqljs keeps in the IRI and the SPARQL 1.1 grammar (§19.8) drops, so isapart cannot tell which IRI is meant`,
+        hint: 'write the IRI in full between < and >',
+      };
+    }
+    if (token.kind === 'iri' && !/^<[A-Za-z][A-Za-z0-9+.-]*:/.test(token.text) && /(^<|\/)\.\.?(\/|[?#]|>$)/.test(token.text)) {
+      return {
+        file,
+        line: token.line,
+        column: token.column,
+        message: `the relative IRI ${token.text} has . or .. segments, which sparqljs resolves against BASE without removing them (RFC 3986 §5.2.4 removes them), so isapart cannot tell which IRI is meant`,
+        hint: 'write the IRI in full, or relative to BASE without ./ and ../',
+      };
+    }
+  }
+  return undefined;
 }
 
 function checkedOperation(file: string, written: WrittenOperation, update: UpdateOperation, keptPredicates: ReadonlySet<string>): EditOperation | { error: InputError } {

@@ -42,8 +42,9 @@ const PATTERNS: [TokenKind, RegExp][] = [
 ];
 
 /**
- * The tokens of a SPARQL text, comments and white space left out. Numbers with a sign are only
- * read where a term may stand (after a term a `+` or `-` is an operator, as in `?x+1`).
+ * The tokens of a SPARQL text, comments and white space left out. A sign before digits is read as
+ * part of a number, as data and templates need; in a WHERE expression (`?x -1`), which this
+ * tokenizer only passes over, that keeps the brackets and `;` where they are.
  */
 export function tokenize(text: string): { tokens: Token[]; error?: TokenError } {
   const tokens: Token[] = [];
@@ -67,7 +68,7 @@ export function tokenize(text: string): { tokens: Token[]; error?: TokenError } 
       offset = end < 0 ? text.length : end;
       continue;
     }
-    const match = matchAt(text, offset, tokens[tokens.length - 1]);
+    const match = matchAt(text, offset);
     if (match === undefined) {
       return { tokens, error: { message: `unexpected character ${JSON.stringify(text[offset])}`, line, column: offset - lineStart + 1 } };
     }
@@ -84,18 +85,11 @@ export function tokenize(text: string): { tokens: Token[]; error?: TokenError } 
   return { tokens };
 }
 
-function matchAt(text: string, offset: number, previous: Token | undefined): { kind: TokenKind; text: string } | undefined {
+function matchAt(text: string, offset: number): { kind: TokenKind; text: string } | undefined {
   for (const [kind, pattern] of PATTERNS) {
     pattern.lastIndex = offset;
     const found = pattern.exec(text);
-    if (found === null || found[0].length === 0) continue;
-    if (kind === 'number' && /^[+-]/.test(found[0]) && previous !== undefined && endsTerm(previous)) continue;
-    return { kind, text: found[0] };
+    if (found !== null && found[0].length > 0) return { kind, text: found[0] };
   }
   return undefined;
-}
-
-/** Whether a token can end an expression operand, so that a following sign is an operator. */
-function endsTerm(token: Token): boolean {
-  return token.kind !== 'punct' && token.kind !== 'word' ? true : token.text === ')' || token.text === ']';
 }
