@@ -47,6 +47,8 @@ export function readSparqlEdit(file: string, text: string, options: { baseIri: s
   if (written.operations.length !== parsed.updates.length) {
     return { error: { file, line: 1, column: 1, message: `isapart read ${written.operations.length} operations where sparqljs read ${parsed.updates.length}, so it cannot place the edit's statements at their lines`, hint: 'please report this edit file as a bug in isapart' } };
   }
+  const shared = sharedBlankNode(file, written.operations);
+  if (shared !== undefined) return { error: shared };
   const operations: EditOperation[] = [];
   for (const [index, update] of parsed.updates.entries()) {
     const operation = checkedOperation(file, written.operations[index], update, options.keptPredicates);
@@ -80,6 +82,30 @@ function ambiguousTerm(file: string, text: string): InputError | undefined {
         message: `the relative IRI ${token.text} has . or .. segments, which sparqljs resolves against BASE without removing them (RFC 3986 §5.2.4 removes them), so isapart cannot tell which IRI is meant`,
         hint: 'write the IRI in full, or relative to BASE without ./ and ../',
       };
+    }
+  }
+  return undefined;
+}
+
+/** A blank node label written in two operations, as an error at its second use (SPARQL 1.1 Query §19.6 scopes a label to one block). */
+function sharedBlankNode(file: string, operations: WrittenOperation[]): InputError | undefined {
+  const firstLine = new Map<string, { operation: number; line: number }>();
+  for (const [index, operation] of operations.entries()) {
+    for (const triple of [...operation.insert, ...operation.delete]) {
+      for (const term of [triple.subject, triple.object]) {
+        if (term.kind !== 'blank' || term.label.startsWith('-')) continue;
+        const earlier = firstLine.get(term.label);
+        if (earlier === undefined) firstLine.set(term.label, { operation: index, line: triple.line });
+        else if (earlier.operation !== index) {
+          return {
+            file,
+            line: triple.line,
+            column: triple.column,
+            message: `the blank node _:${term.label} is also used by the operation on line ${operations[earlier.operation].line}; a blank node label belongs to one operation (SPARQL 1.1 Query §19.6), so the two would be different nodes`,
+            hint: 'give the node an IRI, or state all its statements in one INSERT DATA',
+          };
+        }
+      }
     }
   }
   return undefined;
