@@ -1,4 +1,5 @@
 // Applying a parsed SPARQL Update to the loaded statements, operation by operation, as SPARQL 1.1 Update §3.1 says, into an EditDelta.
+import type { Pattern } from 'sparqljs';
 import type { LoadedSource, Statement } from '../load/statement.js';
 import { statementKey, type EditDelta } from './delta.js';
 import type { EditOperation, SparqlEdit } from './sparql-edit.js';
@@ -24,6 +25,8 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
   const changes = new Map<string, { inserted: boolean; statement: Statement }>();
   let index: StatementIndex | undefined;
   let ignored = 0;
+  // Only the statements of predicates some WHERE reads are indexed (WHERE predicates are always named).
+  const wherePredicates = new Set(edit.operations.flatMap((operation) => patternPredicates(operation.where)));
   const change = (statement: Statement, inserted: boolean) => {
     if (!options.keptPredicates.has(statement.predicate)) {
       ignored += 1;
@@ -32,7 +35,7 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
     const key = statementKey(statement);
     changes.delete(key);
     changes.set(key, { inserted, statement });
-    if (index === undefined) return;
+    if (index === undefined || !wherePredicates.has(statement.predicate)) return;
     if (inserted) index.add(statement);
     else index.remove(statement);
   };
@@ -48,7 +51,7 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
       }
       return;
     }
-    index ??= indexOf(options.sources, changes);
+    index ??= indexOf(options.sources, changes, wherePredicates);
     const solutions = evaluateWhere(operation.where, index, operation.dataset);
     const deletions: Statement[] = [];
     const insertions: Statement[] = [];
@@ -72,10 +75,11 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
 }
 
 /** The loaded statements with the changes so far applied. */
-function indexOf(sources: readonly LoadedSource[], changes: Map<string, { inserted: boolean; statement: Statement }>): StatementIndex {
+function indexOf(sources: readonly LoadedSource[], changes: Map<string, { inserted: boolean; statement: Statement }>, predicates: ReadonlySet<string>): StatementIndex {
   const index = new StatementIndex();
-  for (const source of sources) for (const statement of source.statements) index.add(statement);
+  for (const source of sources) for (const statement of source.statements) if (predicates.has(statement.predicate)) index.add(statement);
   for (const { inserted, statement } of changes.values()) {
+    if (!predicates.has(statement.predicate)) continue;
     if (inserted) index.add(statement);
     else index.remove(statement);
   }
@@ -118,4 +122,14 @@ function statementOf(
     position: { file: context.file, line: triple.line, column: triple.column },
     objectLine: triple.objectLine,
   };
+}
+
+/** The predicates the triple patterns of a WHERE name (checked to be IRIs before evaluation). */
+function patternPredicates(patterns: readonly Pattern[]): string[] {
+  return patterns.flatMap((pattern): string[] => {
+    if ('queryType' in pattern) return [];
+    if (pattern.type === 'bgp') return pattern.triples.flatMap((triple) => ('termType' in triple.predicate ? [triple.predicate.value] : []));
+    if (pattern.type === 'graph' || pattern.type === 'group') return patternPredicates(pattern.patterns);
+    return [];
+  });
 }
