@@ -1,0 +1,177 @@
+// `isapart check --edit / --add / --remove` through the command line: summary, exit codes, refusals with their lines, JSON and SARIF of an edit run.
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { Ajv } from 'ajv';
+import { describe, expect, it } from 'vitest';
+import { sarifValidator } from '../report/sarif-validator.js';
+import { folderWith, runCli } from './terminal-fake.js';
+
+const root = path.resolve(__dirname, '../..');
+const DEMO_EDIT = 'fixtures/demo-edits/running-gear.ru';
+const PREFIXES = [
+  '@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .',
+  '@prefix nv: <https://data.northvale-rail.example/def/> .',
+].join('\n');
+const SPARQL_PREFIXES = 'PREFIX rdfs: <http://www.w3.org/2000/01/rdf-schema#>\nPREFIX nv: <https://data.northvale-rail.example/def/>\n';
+const DATA = `${PREFIXES}\nnv:Car rdfs:subClassOf nv:Asset .\nnv:Bogie rdfs:subClassOf nv:Component .\nnv:Component rdfs:subClassOf nv:Asset .\n`;
+
+/** The last line of a text report: the summary. */
+function summaryOf(out: string): string {
+  return out.trimEnd().split('\n').pop() ?? '';
+}
+
+describe('the shipped demo edit', () => {
+  it('leads the summary with what it introduces and resolves, and names its own lines in the new finding', async () => {
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT]);
+    expect(result.err).toBe('');
+    expect(summaryOf(result.out)).toMatch(/^introduces 1, resolves 2: 0 new errors, 1 new warning, 0 new notes; /);
+    expect(result.out).toContain(`${DEMO_EDIT}:26:15  nv:Wheelset nv:partOf nv:RunningGear`);
+    expect(result.out).toContain(`${DEMO_EDIT}:16:10  nv:Wheelset rdfs:subClassOf nv:RunningGear`);
+    expect(result.out).toContain('resolved by the edit (2)');
+    expect(result.out).toContain(`edit ${DEMO_EDIT}: 7 statements added, 4 removed, 1 statement ignored (no role reads its predicate); nothing was written`);
+    // The new finding is a warning: under the default --fail-on error the edit passes.
+    expect(result.code).toBe(0);
+  });
+
+  it('exits 1 when the edit introduces a finding at or above --fail-on, and counts only new findings', async () => {
+    expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'warning'])).code).toBe(1);
+    expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'note'])).code).toBe(1);
+    // The demo data alone has errors; the edit introduces none of them.
+    expect((await runCli(root, ['check', 'fixtures/demo'])).code).toBe(1);
+  });
+
+  it('is not read as data when the demo folder is linted, and its folder holds no RDF file', async () => {
+    const demo = await runCli(root, ['check', 'fixtures/demo', '--fail-on', 'never']);
+    expect(demo.out).not.toContain('running-gear');
+    const edits = await runCli(root, ['check', 'fixtures/demo-edits']);
+    expect(edits.code).toBe(2);
+    expect(edits.out).toContain('holds no RDF files');
+  });
+});
+
+describe('edits that are refused', () => {
+  it('exits 2 on a syntax error, naming the edit file, line and column, with a hint', async () => {
+    const dir = folderWith({ 'data.ttl': DATA, 'bad.ru': `${SPARQL_PREFIXES}INSERT DATA {\n  nv:Wheelset rdfs:subClassOf nv:Bogie\n  nv:Axle rdfs:subClassOf nv:Wheelset .\n}\n` });
+    const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'bad.ru']);
+    expect(result.code).toBe(2);
+    expect(result.err).toMatch(/^bad\.ru:5:3: error: SPARQL Update syntax error: /);
+    expect(result.err).toContain('hint: the edit is a SPARQL 1.1 Update');
+    expect(result.out).toBe('');
+  });
+
+  it.each([
+    ['LOAD', 'LOAD <https://data.northvale-rail.example/dump.nt>', 'LOAD'],
+    ['CLEAR', 'CLEAR GRAPH <https://data.northvale-rail.example/graph/assets>', 'CLEAR'],
+    ['DROP', 'DROP ALL', 'DROP'],
+    ['COPY', 'COPY DEFAULT TO <https://data.northvale-rail.example/graph/copy>', 'COPY'],
+    ['SERVICE', 'INSERT { ?a rdfs:subClassOf nv:Asset } WHERE { SERVICE <https://example.org/sparql> { ?a rdfs:subClassOf ?b } }', 'a SERVICE call'],
+    ['OPTIONAL', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b OPTIONAL { ?b rdfs:subClassOf ?c } }', 'OPTIONAL'],
+    ['a FILTER', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b FILTER(?a != ?b) }', 'FILTER'],
+    ['a property path', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf+ ?b }', 'a property path'],
+    ['a variable predicate', 'DELETE { ?a ?p ?b } WHERE { ?a ?p ?b }', 'a variable predicate'],
+    ['a predicate no role reads', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b ; rdfs:comment ?c }', 'rdf-schema#comment>, which plays no part'],
+  ])('refuses %s with exit 2, naming it and the line of its operation', async (_name, operation, named) => {
+    const text = `${SPARQL_PREFIXES}INSERT DATA { nv:Axle rdfs:subClassOf nv:Component } ;\n\n# the next one is refused\n${operation}\n`;
+    const dir = folderWith({ 'data.ttl': DATA, 'edit.ru': text });
+    const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'edit.ru']);
+    expect(result.code).toBe(2);
+    expect(result.err).toMatch(/^edit\.ru:6:1: error: /);
+    expect(result.err).toContain('(line 6)');
+    expect(result.err).toContain(named);
+    expect(result.err).toContain('hint: ');
+    expect(result.out).toBe('');
+  });
+
+  it('refuses --edit with --baseline, --since, --endpoint and -f sparql-update, each with a reason', async () => {
+    const dir = folderWith({ 'data.ttl': DATA, 'edit.ru': `${SPARQL_PREFIXES}INSERT DATA { nv:Axle rdfs:subClassOf nv:Component }\n` });
+    for (const extra of [['--baseline', 'before.json'], ['--since', 'HEAD'], ['-f', 'sparql-update']]) {
+      const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'edit.ru', ...extra]);
+      expect(result.code, extra.join(' ')).toBe(2);
+      expect(result.err).toMatch(/^isapart: .*--edit /);
+    }
+    const endpoint = await runCli(dir, ['check', '--endpoint', 'http://127.0.0.1:1/sparql', '--add', 'data.ttl']);
+    expect(endpoint.code).toBe(2);
+    expect(endpoint.err).toContain('export the graph to a file');
+  });
+
+  it('exits 2 when the edit file is missing', async () => {
+    const dir = folderWith({ 'data.ttl': DATA });
+    const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'nowhere.ru']);
+    expect(result.code).toBe(2);
+    expect(result.err).toContain('nowhere.ru: error: the edit file could not be read: no such file');
+  });
+});
+
+describe('--add and --remove files', () => {
+  it('applies RDF files of statements as an edit, each statement at its own file and line', async () => {
+    const dir = folderWith({
+      'data.ttl': `${DATA}nv:Tram rdfs:subClassOf nv:Car .\n`,
+      'add.ttl': `${PREFIXES}\n\nnv:Component rdfs:subClassOf nv:Bogie .\n`,
+      'remove.nt': '<https://data.northvale-rail.example/def/Car> <http://www.w3.org/2000/01/rdf-schema#subClassOf> <https://data.northvale-rail.example/def/Asset> .\n',
+    });
+    const result = await runCli(dir, ['check', 'data.ttl', '--add', 'add.ttl', '--remove', 'remove.nt', '--root', 'https://data.northvale-rail.example/def/Asset', '--fail-on', 'warning']);
+    expect(result.code).toBe(1);
+    expect(result.out).toContain('add.ttl:4:1  nv:Component rdfs:subClassOf nv:Bogie');
+    expect(result.out).toContain('data.ttl:4:1  nv:Bogie rdfs:subClassOf nv:Component');
+    // Removing Car's only superclass makes it an orphan (it stays a class as Tram's superclass): a second new finding.
+    expect(result.out).toMatch(/orphan-class {2}nv:Car has no superclass/);
+    expect(summaryOf(result.out)).toMatch(/^introduces 2, resolves 0: 1 new error, 0 new warnings, 1 new note; /);
+    expect(result.out).toContain('edit --remove remove.nt, --add add.ttl: 1 statement added, 1 removed; nothing was written');
+  });
+
+  it('warns that a --remove statement with a blank node removes nothing, and counts removals the data lacks', async () => {
+    const dir = folderWith({
+      'data.ttl': DATA,
+      'remove.ttl': `${PREFIXES}\n_:x rdfs:subClassOf nv:Asset .\nnv:Tram rdfs:subClassOf nv:Asset .\n`,
+    });
+    const result = await runCli(dir, ['check', 'data.ttl', '--remove', 'remove.ttl', '--fail-on', 'never']);
+    expect(result.code).toBe(0);
+    expect(result.out).toContain('remove.ttl:3:1  warning  1 statement to remove has a blank node');
+    expect(result.out).toContain('2 removed (2 of them not in the data)');
+  });
+});
+
+describe('machine-readable reports of an edit', () => {
+  it('SARIF validates against the OASIS SARIF 2.1.0 schema, lists the edit file as an artifact and points evidence at it', async () => {
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '-f', 'sarif']);
+    const log = JSON.parse(result.out);
+    const validate = sarifValidator();
+    // OASIS SARIF 2.1.0 schema (test/standards/oasis-sarif), through ajv.
+    expect(validate(log), JSON.stringify(validate.errors)).toBe(true);
+    const run = log.runs[0];
+    const index = run.artifacts.findIndex((artifact: { location: { uri: string } }) => artifact.location.uri === DEMO_EDIT);
+    expect(index).toBeGreaterThanOrEqual(0);
+    expect(run.artifacts[index]).toMatchObject({ mimeType: 'application/sparql-update', properties: { edit: 'edit' } });
+    const states = run.results.map((entry: { baselineState: string }) => entry.baselineState);
+    expect(states.filter((state: string) => state === 'new')).toHaveLength(1);
+    expect(states.filter((state: string) => state === 'absent')).toHaveLength(2);
+    expect(states.every((state: string) => ['new', 'unchanged', 'absent'].includes(state))).toBe(true);
+    const introduced = run.results.find((entry: { baselineState: string }) => entry.baselineState === 'new');
+    expect(introduced.locations[0].physicalLocation).toMatchObject({ artifactLocation: { uri: DEMO_EDIT, index }, region: { startLine: 26, startColumn: 15 } });
+    expect(introduced.relatedLocations[0].physicalLocation).toMatchObject({ artifactLocation: { index }, region: { startLine: 16 } });
+  });
+
+  it('JSON validates against docs/findings.schema.json and carries the edit summary', async () => {
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '-f', 'json']);
+    const report = JSON.parse(result.out);
+    const schema = JSON.parse(readFileSync(path.join(root, 'docs/findings.schema.json'), 'utf8'));
+    const validate = new Ajv({ allErrors: true }).compile(schema);
+    expect(validate(report), JSON.stringify(validate.errors)).toBe(true);
+    expect(report.summary.edit).toEqual({
+      files: [{ file: DEMO_EDIT, role: 'edit', format: 'sparql-update' }],
+      added: 7,
+      removed: 4,
+      ignored: 1,
+      introduced: 1,
+      unchanged: 13,
+      resolved: 2,
+    });
+    expect(report.summary.warnings).toBe(1);
+  });
+
+  it('HTML names the comparison with the data before the edit', async () => {
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '-f', 'html']);
+    expect(result.out).toContain('The edit compared with the data before it');
+    expect(result.out).toContain('data-baseline="new"');
+  });
+});
