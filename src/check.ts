@@ -145,6 +145,8 @@ export interface CheckLoadedSteps {
   pushed?: PushedDownResults;
   /** Default: build the graph from the sources and run every active rule on it. */
   evaluate?: EvaluateStep;
+  /** Allow comments besides the sources' own (an edit file's, for the statements it adds). */
+  allowComments?: AllowComment[];
 }
 
 const buildAndRun: EvaluateStep = ({ sources, roleMap, scope, rules }) => {
@@ -173,7 +175,7 @@ export function checkLoadedWith(loaded: LoadResultWithSkipped, options: CheckOpt
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
   const knownIds = new Set([...rules.map((rule) => rule.id), UNUSED_ALLOW_RULE.id]);
-  const allComments = loaded.sources.flatMap((source) => source.allowComments);
+  const allComments = [...loaded.sources.flatMap((source) => source.allowComments), ...(steps.allowComments ?? [])];
   // A comment naming no known rule can suppress nothing: it is an error (with the nearest id), not an unused-allow note.
   const comments = allComments.filter((comment) => knownIds.has(comment.ruleId));
   inputErrors.push(...unknownCommentRuleErrors(allComments, [...knownIds]));

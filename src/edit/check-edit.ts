@@ -91,6 +91,8 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
   });
   const after = checkLoadedWith(loaded, options, {
     startTime,
+    // The edit's allow comments (and those of --add files) apply to the statements it adds; --remove files add no statement to allow.
+    allowComments: [...(edit.sparql?.allowComments ?? []), ...edit.addSources.flatMap((source) => source.allowComments)],
     evaluate: ({ roleMap, scope, rules }) => {
       const evaluated = evaluateEdit({ sources: loaded.sources, graph: before.graph, roles: roleMap, scope, rules, before: before.run ?? { findings: [], failures: [] }, delta });
       return { graph: evaluated.graph, run: evaluated.result };

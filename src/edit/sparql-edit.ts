@@ -1,6 +1,7 @@
 // Reading an --edit file: a SPARQL 1.1 Update (W3C SPARQL 1.1 Update) parsed by sparqljs, each operation placed at its line, refused where it cannot be evaluated here.
 import sparqljs, { type Pattern, type Quads, type Triple, type Update, type UpdateOperation } from 'sparqljs';
-import type { InputError } from '../load/statement.js';
+import { readAllowComment } from '../load/allow-comments.js';
+import type { AllowComment, InputError } from '../load/statement.js';
 import { readUpdateText, type PlacedTriple, type TemplateTerm, type WrittenOperation } from './update-text.js';
 import { tokenize } from './sparql-tokens.js';
 import { unsupportedFeature, type WhereDataset } from './where-pattern.js';
@@ -20,6 +21,8 @@ export interface EditOperation {
 export interface SparqlEdit {
   file: string;
   operations: EditOperation[];
+  /** `# isapart-allow RULE-ID: reason` comments of the edit, for the findings of its own statements. */
+  allowComments: AllowComment[];
 }
 
 const EDIT_HINT = 'the edit is a SPARQL 1.1 Update: operations such as INSERT DATA { … }, DELETE DATA { … } or DELETE { … } INSERT { … } WHERE { … }, separated by ;';
@@ -55,7 +58,13 @@ export function readSparqlEdit(file: string, text: string, options: { baseIri: s
     if ('error' in operation) return operation;
     operations.push(operation);
   }
-  return { file, operations };
+  const allowComments: AllowComment[] = [];
+  for (const comment of tokenize(text).comments) {
+    const reading = readAllowComment(comment.text, { file, line: comment.line, column: comment.column, ownLine: comment.ownLine });
+    if (reading.kind === 'malformed') return { error: reading.error };
+    if (reading.kind === 'allow') allowComments.push(reading.comment);
+  }
+  return { file, operations, allowComments };
 }
 
 /**

@@ -13,6 +13,14 @@ export interface Token {
   offset: number;
 }
 
+/** A comment: its text after `#`, where its `#` is, and whether it stands alone on its line. */
+export interface Comment {
+  text: string;
+  line: number;
+  column: number;
+  ownLine: boolean;
+}
+
 /** A character the tokenizer cannot start a token with, with its place. */
 export interface TokenError {
   message: string;
@@ -46,8 +54,9 @@ const PATTERNS: [TokenKind, RegExp][] = [
  * part of a number, as data and templates need; in a WHERE expression (`?x -1`), which this
  * tokenizer only passes over, that keeps the brackets and `;` where they are.
  */
-export function tokenize(text: string): { tokens: Token[]; error?: TokenError } {
+export function tokenize(text: string): { tokens: Token[]; comments: Comment[]; error?: TokenError } {
   const tokens: Token[] = [];
+  const comments: Comment[] = [];
   let offset = 0;
   let line = 1;
   let lineStart = 0;
@@ -65,12 +74,15 @@ export function tokenize(text: string): { tokens: Token[]; error?: TokenError } 
     }
     if (code === 0x23) {
       const end = text.indexOf('\n', offset);
-      offset = end < 0 ? text.length : end;
+      const stop = end < 0 ? text.length : end;
+      const ownLine = tokens.length === 0 || tokens[tokens.length - 1].line < line;
+      comments.push({ text: text.slice(offset + 1, stop).replace(/\r$/, ''), line, column: offset - lineStart + 1, ownLine });
+      offset = stop;
       continue;
     }
     const match = matchAt(text, offset);
     if (match === undefined) {
-      return { tokens, error: { message: `unexpected character ${JSON.stringify(text[offset])}`, line, column: offset - lineStart + 1 } };
+      return { tokens, comments, error: { message: `unexpected character ${JSON.stringify(text[offset])}`, line, column: offset - lineStart + 1 } };
     }
     tokens.push({ kind: match.kind, text: match.text, line, column: offset - lineStart + 1, offset });
     // A long string may span lines.
@@ -82,7 +94,7 @@ export function tokenize(text: string): { tokens: Token[]; error?: TokenError } 
     }
     offset += match.text.length;
   }
-  return { tokens };
+  return { tokens, comments };
 }
 
 function matchAt(text: string, offset: number): { kind: TokenKind; text: string } | undefined {
