@@ -38,6 +38,7 @@ then --remove and --add files. Each finding is new (the edit introduces it), unc
 found (the edit resolves it); a new finding's evidence names the edit's lines. Exit 1 when the edit
 introduces findings at or above --fail-on. LOAD, CLEAR, DROP and the like, SERVICE, OPTIONAL,
 UNION, FILTER and property paths are refused with their line: state the statements instead.
+isapart only reads the edit, never runs it: review it and run it on a copy of the store first.
 
 Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the
 baseline); only new ones count for the exit code and the summary. --since needs the revision in the

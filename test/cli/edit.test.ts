@@ -33,6 +33,14 @@ describe('the shipped demo edit', () => {
     expect(result.code).toBe(0);
   });
 
+  it("is shown in the README's section on edits exactly as a run prints it", async () => {
+    const readme = readFileSync(path.join(root, 'README.md'), 'utf8');
+    const match = /isapart check fixtures\/demo --edit fixtures\/demo-edits\/running-gear\.ru\n```\n\n```\n([\s\S]*?)```/.exec(readme);
+    expect(match).not.toBeNull();
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT]);
+    expect(match![1]).toBe(result.out);
+  });
+
   it('exits 1 when the edit introduces a finding at or above --fail-on, and counts only new findings', async () => {
     expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'warning'])).code).toBe(1);
     expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'note'])).code).toBe(1);
@@ -46,6 +54,18 @@ describe('the shipped demo edit', () => {
     const edits = await runCli(root, ['check', 'fixtures/demo-edits']);
     expect(edits.code).toBe(2);
     expect(edits.out).toContain('holds no RDF files');
+  });
+});
+
+describe('--help', () => {
+  it('teaches the edit options with an example line and what is refused', async () => {
+    const result = await runCli(folderWith({}), ['check', '--help']);
+    expect(result.code).toBe(0);
+    expect(result.out).toContain('--edit <file>');
+    expect(result.out).toContain('--add <file>');
+    expect(result.out).toContain('--remove <file>');
+    expect(result.out).toMatch(/\$ isapart check data\/ --edit \S+\.ru/);
+    expect(result.out).toContain('LOAD, CLEAR, DROP');
   });
 });
 
