@@ -37,13 +37,17 @@ export interface CheckCommandOptions {
   endpoint?: string;
   graph?: string;
   pushDown?: boolean;
-  edit?: string;
+  /** --edit files; more than one is refused. */
+  edit?: string[];
   add?: string[];
   remove?: string[];
 }
 
 /** Why the edit options cannot be used with the others given, or undefined when they can. */
 function editUsageProblem(options: CheckCommandOptions): string | undefined {
+  if ((options.edit ?? []).length > 1) {
+    return `--edit takes one SPARQL Update file (given: ${options.edit!.join(', ')}); put the operations in one file, separated by ;, in the order they are to run`;
+  }
   const given = [options.edit !== undefined ? '--edit' : '', (options.add ?? []).length > 0 ? '--add' : '', (options.remove ?? []).length > 0 ? '--remove' : ''].filter(Boolean);
   if (given.length === 0) return undefined;
   const named = given.join('/');
@@ -170,7 +174,7 @@ export async function runCheckCommand(
     printInputErrors([baseline.error], terminal);
     return 2;
   }
-  const editInputs: EditInputs = { editFile: options.edit, addFiles: options.add ?? [], removeFiles: options.remove ?? [] };
+  const editInputs: EditInputs = { editFile: options.edit?.[0], addFiles: options.add ?? [], removeFiles: options.remove ?? [] };
   const editing = editInputs.editFile !== undefined || (editInputs.addFiles ?? []).length > 0 || (editInputs.removeFiles ?? []).length > 0;
   // The edit is read and checked before the data, so a refused operation does not wait for a long load.
   const edit = editing ? await prepareEdit(editInputs, checkOptions) : undefined;

@@ -129,7 +129,7 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--endpoint <url>', 'read the hierarchy from a SPARQL 1.1 endpoint instead of files (paged SELECT queries)')
     .option('--graph <iri>', 'with --endpoint: read this named graph (default: the endpoint\'s default graph)')
     .option('--push-down', 'with --endpoint: run the rules as SPARQL queries on the endpoint instead of extracting')
-    .option('--edit <file>', 'lint a SPARQL 1.1 Update before it runs: report the findings it would introduce and resolve (nothing is written)')
+    .option('--edit <file>', 'lint a SPARQL 1.1 Update before it runs: report the findings it would introduce and resolve (nothing is written)', collect)
     .option('--add <file>', 'with or instead of --edit: an RDF file of statements the edit adds (repeatable)', collect)
     .option('--remove <file>', 'with or instead of --edit: an RDF file of statements the edit removes (repeatable)', collect)
     .addHelpText('after', CHECK_EXAMPLES)

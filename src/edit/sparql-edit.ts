@@ -198,7 +198,10 @@ function syntaxError(file: string, text: string, error: unknown, baseIri: string
   if (loc !== undefined) {
     const after = tokens.find((token) => token.line > loc.first_line || (token.line === loc.first_line && token.column > loc.first_column + 1));
     const place = after ?? tokens[tokens.length - 1] ?? { line: loc.first_line, column: loc.first_column + 1 };
-    return { file, line: place.line, column: place.column, message: `SPARQL Update syntax error: ${detail}`, hint: EDIT_HINT };
+    // sparqljs names the token's grammar symbol (PNAME_LN); the text as written is what the reader knows.
+    const found = after === undefined ? 'the end of the update' : after.text;
+    const expected = expecting ? `expected ${expecting[1]}, found ${found}` : detail;
+    return { file, line: place.line, column: place.column, message: `SPARQL Update syntax error: ${expected}`, hint: EDIT_HINT };
   }
   const place = failingOperation(text, tokens, baseIri);
   return { file, line: place.line, column: place.column, message: `SPARQL Update error: ${detail}`, hint: EDIT_HINT };

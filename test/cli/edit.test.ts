@@ -74,7 +74,7 @@ describe('edits that are refused', () => {
     const dir = folderWith({ 'data.ttl': DATA, 'bad.ru': `${SPARQL_PREFIXES}INSERT DATA {\n  nv:Wheelset rdfs:subClassOf nv:Bogie\n  nv:Axle rdfs:subClassOf nv:Wheelset .\n}\n` });
     const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'bad.ru']);
     expect(result.code).toBe(2);
-    expect(result.err).toMatch(/^bad\.ru:5:3: error: SPARQL Update syntax error: /);
+    expect(result.err).toMatch(/^bad\.ru:5:3: error: SPARQL Update syntax error: expected .*, found nv:Axle\n/);
     expect(result.err).toContain('hint: the edit is a SPARQL 1.1 Update');
     expect(result.out).toBe('');
   });
@@ -109,6 +109,9 @@ describe('edits that are refused', () => {
       expect(result.code, extra.join(' ')).toBe(2);
       expect(result.err).toMatch(/^isapart: .*--edit /);
     }
+    const twice = await runCli(dir, ['check', 'data.ttl', '--edit', 'edit.ru', '--edit', 'edit.ru']);
+    expect(twice.code).toBe(2);
+    expect(twice.err).toContain('--edit takes one SPARQL Update file');
     const endpoint = await runCli(dir, ['check', '--endpoint', 'http://127.0.0.1:1/sparql', '--add', 'data.ttl']);
     expect(endpoint.code).toBe(2);
     expect(endpoint.err).toContain('export the graph to a file');
