@@ -121,7 +121,18 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
 function removedNotInData(delta: EditDelta, sources: readonly LoadedSource[]): number {
   if (delta.removed.length === 0) return 0;
   const removed = new Set(delta.removed.map(statementKey));
-  for (const source of sources) for (const statement of source.statements) removed.delete(statementKey(statement));
+  for (const source of sources) {
+    if (source.rows === undefined) {
+      for (const statement of source.statements) removed.delete(statementKey(statement));
+      continue;
+    }
+    // A stored source is scanned by subject number, so that only rows about a removed subject become statements.
+    const { store, start, end } = source.rows;
+    const subjects = new Set(delta.removed.map((statement) => store.termNumberOf(statement.subject)).filter((number) => number >= 0));
+    if (subjects.size === 0) continue;
+    const column = store.subjects;
+    for (let row = start; row < end; row++) if (subjects.has(column[row])) removed.delete(statementKey(store.statement(row)));
+  }
   return removed.size;
 }
 
