@@ -124,17 +124,17 @@ function checkedOperation(file: string, written: WrittenOperation, update: Updat
   const refuse = (message: string, hint: string) => ({ error: { file, line: written.line, column: written.column, message, hint } });
   if ('type' in update) {
     return refuse(
-      `${written.kind} (line ${written.line}) is not evaluated: isapart lints an edit as the statements it adds and removes, and ${written.kind} works on whole graphs`,
+      `${written.name} (line ${written.line}) is not evaluated: isapart lints an edit as the statements it adds and removes, and ${written.name} works on whole graphs`,
       'state the statements instead: INSERT DATA / DELETE DATA, or give them as --add FILE / --remove FILE',
     );
   }
   const mismatch = templateMismatch(written, update);
   if (mismatch) {
-    return refuse(`isapart and sparqljs read the triples of ${written.kind} (line ${written.line}) differently, so their lines cannot be given`, 'please report this edit file as a bug in isapart');
+    return refuse(`isapart and sparqljs read the triples of ${written.name} (line ${written.line}) differently, so their lines cannot be given`, 'please report this edit file as a bug in isapart');
   }
   const where = update.updateType === 'insertdelete' ? update.where : update.updateType === 'deletewhere' ? update.delete.map(quadsAsPattern) : [];
   const unsupported = unsupportedFeature(where, keptPredicates);
-  if (unsupported !== undefined) return refuse(`${written.kind} (line ${written.line}) reads ${unsupported.reason}, which isapart does not evaluate`, unsupported.hint);
+  if (unsupported !== undefined) return refuse(`${written.name} (line ${written.line}) reads ${unsupported.reason}, which isapart does not evaluate`, unsupported.hint);
   const withGraph = update.updateType === 'insertdelete' ? (update.graph?.value ?? '') : '';
   const using = update.updateType === 'insertdelete' ? update.using : undefined;
   const usingAny = using !== undefined && (using.default.length > 0 || using.named.length > 0);

@@ -2,6 +2,7 @@
 import { resolve as resolveIri } from 'relative-to-absolute-iri';
 import type { Literal } from '../load/statement.js';
 import { RDF_TYPE } from '../roles/vocabulary.js';
+import { numberLiteral, unescapeCodepoints, unescapeString } from './sparql-literals.js';
 import { tokenize, type Token, type TokenError } from './sparql-tokens.js';
 
 const RDF = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
@@ -43,6 +44,8 @@ export type OperationKind =
 /** One operation of the update as written. */
 export interface WrittenOperation {
   kind: OperationKind;
+  /** How messages name it: its kind, or for DELETE/INSERT the clauses written (`INSERT … WHERE`). */
+  name: string;
   /** Where its first keyword is. */
   line: number;
   column: number;
@@ -122,8 +125,9 @@ class UpdateReader {
   private operation(): WrittenOperation {
     const first = this.peek();
     const keyword = this.keyword();
-    const placed = (kind: OperationKind, insert: PlacedTriple[] = [], remove: PlacedTriple[] = []): WrittenOperation => ({
+    const placed = (kind: OperationKind, insert: PlacedTriple[] = [], remove: PlacedTriple[] = [], name: string = kind): WrittenOperation => ({
       kind,
+      name,
       line: first.line,
       column: first.column,
       insert,
@@ -155,20 +159,23 @@ class UpdateReader {
   }
 
   /** DELETE {…} INSERT {…} USING … WHERE {…}, with either template left out. */
-  private modify(placed: (kind: OperationKind, insert?: PlacedTriple[], remove?: PlacedTriple[]) => WrittenOperation): WrittenOperation {
+  private modify(placed: (kind: OperationKind, insert?: PlacedTriple[], remove?: PlacedTriple[], name?: string) => WrittenOperation): WrittenOperation {
     let remove: PlacedTriple[] = [];
     let insert: PlacedTriple[] = [];
+    const clauses: string[] = [];
     if (this.keyword() === 'DELETE') {
       this.index += 1;
       remove = this.quadBlock();
+      clauses.push('DELETE');
     }
     if (this.keyword() === 'INSERT') {
       this.index += 1;
       insert = this.quadBlock();
+      clauses.push('INSERT');
     }
     // USING clauses and the WHERE pattern are read from sparqljs's parse; here they are only passed over.
     this.skipToOperationEnd();
-    return placed('DELETE/INSERT', insert, remove);
+    return placed('DELETE/INSERT', insert, remove, `${clauses.join(' … ')} … WHERE`);
   }
 
   private skipToOperationEnd(): void {
@@ -402,27 +409,4 @@ class UpdateReader {
     if (token === undefined) return this.endError();
     return new ReadError(`expected ${expected}, found ${token.text}`, token.line, token.column);
   }
-}
-
-function numberLiteral(text: string): Literal {
-  // sparqljs 3.7.4, the reference parser, drops a leading '+' from the lexical form; kept the same here.
-  const value = text.startsWith('+') ? text.slice(1) : text;
-  const datatype = /[eE]/.test(text) ? 'double' : text.includes('.') ? 'decimal' : 'integer';
-  return { value, datatype: `${XSD}${datatype}`, language: '' };
-}
-
-const STRING_ESCAPES: Record<string, string> = { t: '\t', b: '\b', n: '\n', r: '\r', f: '\f', '"': '"', "'": "'", '\\': '\\' };
-
-/** A string body with its escapes read (SPARQL 1.1 §19.7 ECHAR, and \u/\U code points). */
-function unescapeString(body: string): string {
-  return body.replace(/\\(u[0-9A-Fa-f]{4}|U[0-9A-Fa-f]{8}|.)/gs, (whole, escape: string) => {
-    if (escape.length > 1) return String.fromCodePoint(Number.parseInt(escape.slice(1), 16));
-    return STRING_ESCAPES[escape] ?? whole;
-  });
-}
-
-function unescapeCodepoints(text: string): string {
-  return text.replace(/\\u([0-9A-Fa-f]{4})|\\U([0-9A-Fa-f]{8})/g, (_whole, short?: string, long?: string) =>
-    String.fromCodePoint(Number.parseInt(short ?? long ?? '0', 16)),
-  );
 }
