@@ -41,6 +41,18 @@ describe('the shipped demo edit', () => {
     expect(match![1]).toBe(result.out);
   });
 
+  it("introduces and resolves exactly what the demo's README table says", async () => {
+    const table = readFileSync(path.join(root, 'fixtures/demo/README.md'), 'utf8').split('## The demo edit')[1];
+    const claimed = (verb: string) =>
+      [...table.matchAll(new RegExp(`${verb} ([a-z-]+) on (\\S+)`, 'g'))].map((match) => `${match[1]} https://data.northvale-rail.example/${match[2]}`).sort();
+    const result = await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '-f', 'json']);
+    const findings: { ruleId: string; focus: string; baselineState: string }[] = JSON.parse(result.out).findings;
+    const actual = (state: string) => findings.filter((finding) => finding.baselineState === state).map((finding) => `${finding.ruleId} ${finding.focus}`).sort();
+    expect(claimed('introduces')).toEqual(actual('new'));
+    expect(claimed('resolves')).toEqual(actual('absent'));
+    expect(actual('new').length + actual('absent').length).toBe(3);
+  });
+
   it('exits 1 when the edit introduces a finding at or above --fail-on, and counts only new findings', async () => {
     expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'warning'])).code).toBe(1);
     expect((await runCli(root, ['check', 'fixtures/demo', '--edit', DEMO_EDIT, '--fail-on', 'note'])).code).toBe(1);
