@@ -54,7 +54,8 @@ export async function prepareEdit(inputs: EditInputs, options: CheckOptions): Pr
       errors.push({ file, line: 0, column: 0, message: `the edit file could not be read: ${reason}`, hint: 'give the path of a SPARQL 1.1 Update file (often named *.ru) with --edit' });
     }
     if (text !== undefined) {
-      const read = readSparqlEdit(file, text, { baseIri: options.baseIri ?? defaultBaseIri(file, cwd), keptPredicates });
+      // A byte order mark is no part of the update (sparqljs skips it; the line reader must too).
+      const read = readSparqlEdit(file, text.replace(/^\uFEFF/, ''), { baseIri: options.baseIri ?? defaultBaseIri(file, cwd), keptPredicates });
       if ('error' in read) errors.push(read.error);
       else sparql = read;
     }
@@ -71,6 +72,9 @@ export async function prepareEdit(inputs: EditInputs, options: CheckOptions): Pr
   if (errors.length > 0) return { errors };
   const warnings = [...removeSources, ...addSources].flatMap((source) => source.warnings ?? []);
   warnings.push(...blankNodeRemovalWarnings(removeSources));
+  if (sparql !== undefined && sparql.operations.length === 0) {
+    warnings.push({ file: sparql.file, line: 0, column: 0, message: 'the edit holds no operation, so it changes nothing', hint: 'an edit is a SPARQL 1.1 Update such as INSERT DATA { … } or DELETE DATA { … }; check that the right file was given' });
+  }
   return { sparql, addSources, removeSources, files, warnings, file: files[0]?.file ?? '<edit>' };
 }
 

@@ -36,6 +36,10 @@ export function readSparqlEdit(file: string, text: string, options: { baseIri: s
   let parsed: Update;
   try {
     const query = new sparqljs.Parser({ baseIRI: options.baseIri }).parse(text);
+    // sparqljs 3.7.4 reads a text of only comments and prologue as an object without a type: an update of no operations.
+    if ((query as { type?: string }).type === undefined) {
+      return { file, operations: [], allowComments: [] };
+    }
     if (query.type !== 'update') {
       return { error: { file, line: 1, column: 1, message: `${file} is a SPARQL ${query.queryType} query, not an update`, hint: EDIT_HINT } };
     }

@@ -169,6 +169,24 @@ describe('allow comments in the edit', () => {
   });
 });
 
+describe('edit files as editors save them', () => {
+  it('reads an edit with a byte order mark and CRLF line ends at the same lines', async () => {
+    const text = `\uFEFF${SPARQL_PREFIXES}INSERT DATA {\n  nv:Component rdfs:subClassOf nv:Bogie .\n}\n`.replace(/\n/g, '\r\n');
+    const dir = folderWith({ 'data.ttl': DATA, 'edit.ru': text });
+    const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'edit.ru']);
+    expect(result.code).toBe(1);
+    expect(result.out).toContain('edit.ru:4:3  nv:Component rdfs:subClassOf nv:Bogie');
+  });
+
+  it('warns that an edit of comments only changes nothing', async () => {
+    const dir = folderWith({ 'data.ttl': DATA, 'edit.ru': '# to be written\n' });
+    const result = await runCli(dir, ['check', 'data.ttl', '--edit', 'edit.ru']);
+    expect(result.code).toBe(0);
+    expect(result.out).toContain('the edit holds no operation, so it changes nothing');
+    expect(summaryOf(result.out)).toMatch(/^introduces 0, resolves 0: /);
+  });
+});
+
 describe('--add and --remove files', () => {
   it('applies RDF files of statements as an edit, each statement at its own file and line', async () => {
     const dir = folderWith({
