@@ -108,6 +108,7 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
     removed: delta.removed.length,
     removedAbsent: removedNotInData(delta, loaded.sources),
     ignored: delta.ignored,
+    removals: delta.removed,
   };
   return {
     ...after,

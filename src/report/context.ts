@@ -22,6 +22,8 @@ export interface EditReport {
   removedAbsent: number;
   /** Statements of the edit whose predicate the hierarchy does not read. */
   ignored: number;
+  /** The statements the edit removes, at their places in the edit (so a resolved finding can name them). */
+  removals?: Statement[];
 }
 
 /** The context of one run, passed to every formatter beside the findings. */

@@ -1,5 +1,6 @@
 // The text report: findings grouped by file for a terminal, coloured with chalk when asked.
 import { Chalk, type ChalkInstance } from 'chalk';
+import { statementKey } from '../edit/delta.js';
 import type { Finding, Level } from '../engine/finding.js';
 import type { InputError, Position } from '../load/statement.js';
 import type { ReportContext } from './context.js';
@@ -39,7 +40,7 @@ export function toText(findings: Finding[], context: TextReportContext): string 
     ruleFailuresSection(context, writer),
     ...fileSections(listed.filter((finding) => !finding.suppression), writer),
     allowedSection(listed.filter((finding) => finding.suppression), writer),
-    absentSection(findings.filter((finding) => finding.baselineState === 'absent'), writer, context.edit !== undefined),
+    absentSection(findings.filter((finding) => finding.baselineState === 'absent'), writer, context.edit),
     baselineSection(context, counts, listed.length),
     editSection(context, writer),
   ].filter((section) => section.length > 0);
@@ -115,10 +116,16 @@ function allowedSection(suppressed: Finding[], writer: TextWriter): string[] {
 }
 
 /** Findings of the baseline that this run no longer has, each with its rule and message. */
-function absentSection(absent: Finding[], writer: TextWriter, byEdit: boolean): string[] {
+function absentSection(absent: Finding[], writer: TextWriter, edit: ReportContext['edit']): string[] {
   if (absent.length === 0) return [];
-  const lines = [writer.paint.bold(`${byEdit ? 'resolved by the edit' : 'no longer found'} (${absent.length})`)];
-  for (const finding of sortFindings(absent)) lines.push(`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`);
+  const lines = [writer.paint.bold(`${edit !== undefined ? 'resolved by the edit' : 'no longer found'} (${absent.length})`)];
+  // An edit names the statements of its own that a resolved finding's evidence loses.
+  const removals = new Map((edit?.removals ?? []).map((statement) => [statementKey(statement), statement]));
+  for (const finding of sortFindings(absent)) {
+    lines.push(`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`);
+    const removed = new Set(finding.evidence.flatMap((statement) => removals.get(statementKey(statement)) ?? []));
+    for (const statement of removed) lines.push(`${DETAIL_INDENT}removed: ${evidenceWhere(statement.position, writer)}${writer.terms.statement(statement)}`);
+  }
   return lines;
 }
 

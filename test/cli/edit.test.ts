@@ -28,6 +28,8 @@ describe('the shipped demo edit', () => {
     expect(result.out).toContain(`${DEMO_EDIT}:26:15  nv:Wheelset nv:partOf nv:RunningGear`);
     expect(result.out).toContain(`${DEMO_EDIT}:16:10  nv:Wheelset rdfs:subClassOf nv:RunningGear`);
     expect(result.out).toContain('resolved by the edit (2)');
+    // A resolved finding names the edit's statement that removes its evidence.
+    expect(result.out).toContain(`      removed: ${DEMO_EDIT}:23:15  nv:TractionMotor rdfs:subClassOf nv:Component`);
     expect(result.out).toContain(`edit ${DEMO_EDIT}: 7 statements added, 4 removed, 1 statement ignored (no role reads its predicate); nothing was written`);
     // The new finding is a warning: under the default --fail-on error the edit passes.
     expect(result.code).toBe(0);
