@@ -40,6 +40,9 @@ const OPERATIONS = [
   'INSERT { ?b nv:partOf ?a } USING NAMED nv:g1 WHERE { GRAPH ?g { ?a nv:partOf ?b } }',
   'DELETE { ?x a ?c } INSERT { GRAPH ?g { ?x a ?c } } WHERE { ?x a ?c . GRAPH ?g { ?c rdfs:subClassOf ?d } }',
   'INSERT { ?x rdfs:subClassOf ?x } WHERE { ?x rdfs:subClassOf ?x }',
+  'DELETE WHERE { GRAPH ?g { ?a nv:partOf ?b . ?b nv:partOf ?c } }',
+  'INSERT { $1 rdfs:subClassOf $2 } WHERE {}',
+  'DELETE { ?b nv:partOf ?c } WHERE { GRAPH nv:g1 { ?a rdfs:subClassOf ?b } ?b nv:partOf ?c }',
 ];
 
 const statementArbitrary = fc.record({
