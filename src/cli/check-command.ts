@@ -182,7 +182,12 @@ export async function runCheckCommand(
     printInputErrors(edit.errors, terminal);
     return 2;
   }
-  let result = await (edit === undefined ? check(checkOptions) : checkEdit(checkOptions, edit)).finally(() => bar?.stop());
+  const checked = await (edit === undefined ? check(checkOptions) : checkEdit(checkOptions, edit)).finally(() => bar?.stop());
+  if ('errors' in checked) {
+    printInputErrors(checked.errors, terminal);
+    return 2;
+  }
+  let result = checked;
   if (baseline !== undefined) {
     const compared = await baseline.prepared(result);
     if ('error' in compared) {

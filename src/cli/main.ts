@@ -33,11 +33,12 @@ Examples:
                                                  the same for statements given as RDF files
 
 Edits: --edit reads a SPARQL 1.1 Update (INSERT DATA, DELETE DATA, DELETE/INSERT ... WHERE with
-triple patterns, GRAPH and VALUES); isapart applies it to the statements it read, in memory only,
-then --remove and --add files. Each finding is new (the edit introduces it), unchanged, or no longer
-found (the edit resolves it); a new finding's evidence names the edit's lines. Exit 1 when the edit
-introduces findings at or above --fail-on. LOAD, CLEAR, DROP and the like, SERVICE, OPTIONAL,
-UNION, FILTER and property paths are refused with their line: state the statements instead.
+triple patterns, GRAPH, VALUES and FILTER tests such as != and NOT EXISTS); isapart applies it to
+the statements it read, in memory only, then --remove and --add files. Each finding is new (the
+edit introduces it), unchanged, or no longer found (the edit resolves it); a new finding's evidence
+names the edit's lines. Exit 1 when the edit introduces findings at or above --fail-on.
+LOAD, CLEAR, DROP and the like, SERVICE, OPTIONAL, UNION, BIND, property paths and FILTER
+functions are refused with their line: state the statements instead.
 isapart only reads the edit, never runs it: review it and run it on a copy of the store first.
 
 Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the

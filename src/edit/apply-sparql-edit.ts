@@ -1,10 +1,10 @@
 // Applying a parsed SPARQL Update to the loaded statements, operation by operation, as SPARQL 1.1 Update §3.1 says, into an EditDelta.
-import type { Pattern } from 'sparqljs';
-import type { LoadedSource, Statement } from '../load/statement.js';
+import type { InputError, LoadedSource, Statement } from '../load/statement.js';
 import { statementKey, type EditDelta } from './delta.js';
 import type { EditOperation, SparqlEdit } from './sparql-edit.js';
 import { StatementIndex, type BoundTerm } from './statement-index.js';
 import type { PlacedTriple, TemplateTerm } from './update-text.js';
+import { FILTER_HINT, UnevaluatedFilter } from './where-filter.js';
 import { evaluateWhere, type Solution } from './where-pattern.js';
 
 /** What applying an edit needs besides the edit: the data, and which predicates are kept. */
@@ -21,7 +21,7 @@ export interface ApplyEditOptions {
  * last change inserts it is added, one whose last change deletes it is removed; statements of a
  * predicate the graph does not read are counted as ignored.
  */
-export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): EditDelta {
+export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): EditDelta | { error: InputError } {
   const changes = new Map<string, { inserted: boolean; statement: Statement }>();
   let index: StatementIndex | undefined;
   let ignored = 0;
@@ -39,7 +39,9 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
     if (inserted) index.add(statement);
     else index.remove(statement);
   };
+  let refusal: InputError | undefined;
   edit.operations.forEach((operation, operationIndex) => {
+    if (refusal !== undefined) return;
     const instantiate = (triple: PlacedTriple, solution: Solution, solutionIndex: number) =>
       statementOf(triple, solution, { operation, file: edit.file, blankPrefix: `${options.blankNodePrefix}${operationIndex + 1}.${solutionIndex}.` });
     const { kind } = operation.written;
@@ -52,7 +54,21 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
       return;
     }
     index ??= indexOf(options.sources, changes, wherePredicates);
-    const solutions = evaluateWhere(operation.where, index, operation.dataset);
+    let solutions: Solution[];
+    try {
+      solutions = evaluateWhere(operation.where, index, operation.dataset);
+    } catch (error) {
+      if (!(error instanceof UnevaluatedFilter)) throw error;
+      const { line, column, name } = operation.written;
+      refusal = {
+        file: edit.file,
+        line,
+        column,
+        message: `${name} (line ${line}) has a FILTER that needs ${error.message}, which isapart does not evaluate`,
+        hint: FILTER_HINT,
+      };
+      return;
+    }
     const deletions: Statement[] = [];
     const insertions: Statement[] = [];
     solutions.forEach((solution, solutionIndex) => {
@@ -68,6 +84,7 @@ export function applySparqlEdit(edit: SparqlEdit, options: ApplyEditOptions): Ed
     for (const statement of deletions) change(statement, false);
     for (const statement of insertions) change(statement, true);
   });
+  if (refusal !== undefined) return { error: refusal };
   const added: Statement[] = [];
   const removed: Statement[] = [];
   for (const { inserted, statement } of changes.values()) (inserted ? added : removed).push(statement);
@@ -124,12 +141,11 @@ function statementOf(
   };
 }
 
-/** The predicates the triple patterns of a WHERE name (checked to be IRIs before evaluation). */
-function patternPredicates(patterns: readonly Pattern[]): string[] {
-  return patterns.flatMap((pattern): string[] => {
-    if ('queryType' in pattern) return [];
-    if (pattern.type === 'bgp') return pattern.triples.flatMap((triple) => ('termType' in triple.predicate ? [triple.predicate.value] : []));
-    if (pattern.type === 'graph' || pattern.type === 'group') return patternPredicates(pattern.patterns);
-    return [];
-  });
+/** The predicates the triple patterns of a WHERE name, in groups, GRAPH blocks and FILTER EXISTS alike (checked to be IRIs before evaluation). */
+function patternPredicates(value: unknown): string[] {
+  if (Array.isArray(value)) return value.flatMap(patternPredicates);
+  if (typeof value !== 'object' || value === null || 'termType' in value) return [];
+  const pattern = value as { type?: string; triples?: { predicate: { termType?: string; value: string } }[] };
+  const own = pattern.type === 'bgp' ? (pattern.triples ?? []).flatMap((triple) => (triple.predicate.termType === 'NamedNode' ? [triple.predicate.value] : [])) : [];
+  return [...own, ...Object.values(value).flatMap(patternPredicates)];
 }

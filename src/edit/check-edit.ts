@@ -83,7 +83,7 @@ export async function prepareEdit(inputs: EditInputs, options: CheckOptions): Pr
  * compared with the first run's: `new` (the edit introduces it), `unchanged`, or `absent` (the
  * edit resolves it). Suppressions apply to both runs alike.
  */
-export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Promise<CheckResult> {
+export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Promise<CheckResult | { errors: InputError[] }> {
   const startTime = new Date();
   const cwd = options.cwd ?? process.cwd();
   const settings = readLoadSettings(options);
@@ -93,6 +93,8 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
     keptPredicates: predicatesTheGraphReads(settings.roleMap),
     blankNodePrefix: blankNodeLabelPrefix(edit.file, cwd),
   });
+  // A FILTER that turns out to compare literals by value is refused when met, before any finding is reported.
+  if ('error' in delta) return { errors: [delta.error] };
   const after = checkLoadedWith(loaded, options, {
     startTime,
     // The edit's allow comments (and those of --add files) apply to the statements it adds; --remove files add no statement to allow.
@@ -169,7 +171,7 @@ function mergedFailures(before: CheckResult, after: CheckResult): CheckResult['c
  * The whole edit as one delta: the update's operations first, then the --remove files, then the
  * --add files; a statement's last change decides whether it is added or removed.
  */
-function editDelta(edit: PreparedEdit, sources: readonly LoadedSource[], options: { keptPredicates: ReadonlySet<string>; blankNodePrefix: string }): EditDelta {
+function editDelta(edit: PreparedEdit, sources: readonly LoadedSource[], options: { keptPredicates: ReadonlySet<string>; blankNodePrefix: string }): EditDelta | { error: InputError } {
   const changes = new Map<string, { inserted: boolean; statement: Statement }>();
   const change = (statement: Statement, inserted: boolean) => {
     const key = statementKey(statement);
@@ -179,6 +181,7 @@ function editDelta(edit: PreparedEdit, sources: readonly LoadedSource[], options
   let ignored = 0;
   if (edit.sparql !== undefined) {
     const delta = applySparqlEdit(edit.sparql, { sources, ...options });
+    if ('error' in delta) return delta;
     for (const statement of delta.removed) change(statement, false);
     for (const statement of delta.added) change(statement, true);
     ignored += delta.ignored;

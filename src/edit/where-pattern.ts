@@ -1,7 +1,8 @@
-// The WHERE patterns an edit can evaluate (basic graph patterns, GRAPH, groups and VALUES; W3C SPARQL 1.1 Query §18.5 for their algebra), and what it refuses.
+// The WHERE patterns an edit can evaluate (basic graph patterns, GRAPH, groups, VALUES and FILTER; W3C SPARQL 1.1 Query §18 for their algebra), and what it refuses.
 import type * as Sparql from 'sparqljs';
 import type { Literal } from '../load/statement.js';
 import { boundKey, type BoundTerm, type StatementIndex } from './statement-index.js';
+import { FILTER_HINT, filterKeeps, unsupportedFilter } from './where-filter.js';
 
 /** One solution: variable name → bound value. */
 export type Solution = Map<string, BoundTerm>;
@@ -21,7 +22,7 @@ export interface Unsupported {
 }
 
 const SHAPE_HINT =
-  'isapart evaluates WHERE patterns made of triple patterns with a fixed predicate, GRAPH blocks, nested groups and VALUES; rewrite the operation as INSERT DATA / DELETE DATA (or split it), or list the statements in --add / --remove files';
+  'isapart evaluates WHERE patterns made of triple patterns with a fixed predicate, GRAPH blocks, nested groups, VALUES and FILTER tests; rewrite the operation as INSERT DATA / DELETE DATA (or split it), or list the statements in --add / --remove files';
 
 /** The first feature of the patterns that is not evaluated here, or undefined when all are. */
 export function unsupportedFeature(patterns: readonly Sparql.Pattern[], keptPredicates: ReadonlySet<string>): Unsupported | undefined {
@@ -38,10 +39,22 @@ export function unsupportedFeature(patterns: readonly Sparql.Pattern[], keptPred
       case 'group': {
         const inner = unsupportedFeature(pattern.patterns, keptPredicates);
         if (inner !== undefined) return inner;
+        if (pattern.type === 'graph' && pattern.name.termType === 'Variable' && filtersMention(pattern.patterns, pattern.name.value)) {
+          // SPARQL 1.1 §18.6 binds ?g only after the block is evaluated, and engines differ on this.
+          return {
+            reason: `a FILTER inside GRAPH ?${pattern.name.value} that reads ?${pattern.name.value}`,
+            hint: `SPARQL engines disagree on whether such a FILTER sees ?${pattern.name.value}; move the FILTER after the GRAPH block`,
+          };
+        }
         break;
       }
       case 'values':
         break;
+      case 'filter': {
+        const reason = unsupportedFilter(pattern.expression, (inner) => unsupportedFeature(inner, keptPredicates)?.reason);
+        if (reason !== undefined) return { reason, hint: FILTER_HINT };
+        break;
+      }
       case 'service':
         return { reason: 'a SERVICE call (a query sent to another endpoint)', hint: 'isapart never reads the network while linting an edit; copy the statements it would read into a file and give it as a data path' };
       default:
@@ -49,6 +62,24 @@ export function unsupportedFeature(patterns: readonly Sparql.Pattern[], keptPred
     }
   }
   return undefined;
+}
+
+/** Whether a FILTER among the patterns (in nested groups too) names the variable. */
+function filtersMention(patterns: readonly Sparql.Pattern[], variable: string): boolean {
+  return patterns.some((pattern) => {
+    if ('queryType' in pattern) return false;
+    if (pattern.type === 'filter') return mentions(pattern.expression, variable);
+    return (pattern.type === 'group' || pattern.type === 'graph') && filtersMention(pattern.patterns, variable);
+  });
+}
+
+/** Whether an expression (or a pattern inside EXISTS) names the variable anywhere. */
+function mentions(value: unknown, variable: string): boolean {
+  if (Array.isArray(value)) return value.some((item) => mentions(item, variable));
+  if (typeof value !== 'object' || value === null) return false;
+  const term = value as { termType?: string; value?: unknown };
+  if (term.termType !== undefined) return term.termType === 'Variable' && term.value === variable;
+  return Object.values(value).some((item) => mentions(item, variable));
 }
 
 function unsupportedTriple(triple: Sparql.Triple, keptPredicates: ReadonlySet<string>): Unsupported | undefined {
@@ -80,9 +111,36 @@ interface Scope {
   dataset: WhereDataset;
   /** The active graph: a named graph's IRI, or undefined for the default graph. */
   graph: string | undefined;
+  /** Inside EXISTS: the outer solution's values stand in for its variables everywhere, FILTERs included (§18.6). */
+  substituted?: boolean;
 }
 
 function evaluateGroup(patterns: readonly Sparql.Pattern[], scope: Scope, start: Solution[]): Solution[] {
+  const filters = patterns.filter((pattern): pattern is Sparql.FilterPattern => !('queryType' in pattern) && pattern.type === 'filter');
+  if (filters.length === 0) return extendByPatterns(patterns, scope, start);
+  // A group's FILTERs see only the group's own solutions (SPARQL 1.1 Query §18.2.2), so the group is
+  // evaluated on its own, filtered, and then joined with the solutions it extends.
+  const exists = (inner: Sparql.Pattern[], solution: Solution) => evaluateGroup(inner, { ...scope, substituted: true }, [solution]).length > 0;
+  const rest = patterns.filter((pattern) => !filters.includes(pattern as Sparql.FilterPattern));
+  const keeps = (solution: Solution) => filters.every((filter) => filterKeeps(filter.expression, solution, exists));
+  if (scope.substituted === true) return extendByPatterns(rest, scope, start).filter(keeps);
+  const own = extendByPatterns(rest, scope, [new Map()]).filter(keeps);
+  return start.flatMap((outer) => own.flatMap((inner) => joined(outer, inner) ?? []));
+}
+
+/** The merge of two compatible solutions (every shared variable has one value), or undefined. */
+function joined(left: Solution, right: Solution): Solution | undefined {
+  const merged = new Map(left);
+  for (const [name, value] of right) {
+    const earlier = merged.get(name);
+    if (earlier === undefined) merged.set(name, value);
+    else if (boundKey(earlier) !== boundKey(value)) return undefined;
+  }
+  return merged;
+}
+
+/** The solutions extending each of `start` by the patterns, in order (no FILTER among them). */
+function extendByPatterns(patterns: readonly Sparql.Pattern[], scope: Scope, start: Solution[]): Solution[] {
   let solutions = start;
   for (const pattern of patterns) {
     if ('queryType' in pattern) throw new Error('sub-queries are refused before evaluation');
@@ -106,6 +164,8 @@ function evaluateGroup(patterns: readonly Sparql.Pattern[], scope: Scope, start:
   return solutions;
 }
 
+// SPARQL 1.1 Query §18.5: GRAPH ?g evaluates its group in each named graph, then binds ?g; a FILTER
+// inside the group therefore does not see ?g, which evaluateGroup's own evaluation keeps.
 function evaluateGraph(pattern: Sparql.GraphPattern, scope: Scope, solution: Solution): Solution[] {
   const named = scope.dataset.namedGraphs ?? scope.index.namedGraphs();
   if (pattern.name.termType === 'NamedNode') {

@@ -100,7 +100,8 @@ describe('edits that are refused', () => {
     ['COPY', 'COPY DEFAULT TO <https://data.northvale-rail.example/graph/copy>', 'COPY'],
     ['SERVICE', 'INSERT { ?a rdfs:subClassOf nv:Asset } WHERE { SERVICE <https://example.org/sparql> { ?a rdfs:subClassOf ?b } }', 'a SERVICE call'],
     ['OPTIONAL', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b OPTIONAL { ?b rdfs:subClassOf ?c } }', 'OPTIONAL'],
-    ['a FILTER', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b FILTER(?a != ?b) }', 'FILTER'],
+    ['a FILTER function', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b FILTER(regex(str(?a), "Car")) }', 'the operator REGEX in a FILTER'],
+    ['a FILTER on the graph variable inside GRAPH', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { GRAPH ?g { ?a rdfs:subClassOf ?b FILTER(?g != nv:g1) } }', 'inside GRAPH ?g that reads ?g'],
     ['a property path', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf+ ?b }', 'a property path'],
     ['a variable predicate', 'DELETE { ?a ?p ?b } WHERE { ?a ?p ?b }', 'a variable predicate'],
     ['a predicate no role reads', 'DELETE { ?a rdfs:subClassOf ?b } WHERE { ?a rdfs:subClassOf ?b ; rdfs:comment ?c }', 'rdf-schema#comment>, which plays no part'],
@@ -114,6 +115,21 @@ describe('edits that are refused', () => {
     expect(result.err).toContain(named);
     expect(result.err).toContain('hint: ');
     expect(result.out).toBe('');
+  });
+
+  it('evaluates FILTER NOT EXISTS, and refuses at its line a FILTER that compares literals by value', async () => {
+    const dir = folderWith({
+      'data.ttl': `${DATA}nv:Car rdfs:label "Car" .\nnv:Tram rdfs:subClassOf nv:RailVehicle .\n`,
+      'orphans.ru': `${SPARQL_PREFIXES}INSERT { ?class rdfs:subClassOf nv:Asset }\nWHERE { ?sub rdfs:subClassOf ?class FILTER NOT EXISTS { ?class rdfs:subClassOf ?any } FILTER(?class != nv:Asset) }\n`,
+      'numbers.ru': `${SPARQL_PREFIXES}\nDELETE { ?a rdfs:label ?l } WHERE { ?a rdfs:label ?l FILTER(?l = 1) }\n`,
+    });
+    const orphans = await runCli(dir, ['check', 'data.ttl', '--edit', 'orphans.ru', '--fail-on', 'never']);
+    // nv:RailVehicle is the one superclass without a superclass of its own (nv:Asset is left out by the FILTER).
+    expect(orphans.out).toContain('edit orphans.ru: 1 statement added, 0 removed; nothing was written');
+    expect(orphans.out).toMatch(/resolved by the edit \(1\)\n {2}note {5}orphan-class {2}nv:RailVehicle has no superclass/);
+    const numbers = await runCli(dir, ['check', 'data.ttl', '--edit', 'numbers.ru']);
+    expect(numbers.code).toBe(2);
+    expect(numbers.err).toMatch(/^numbers\.ru:4:1: error: DELETE … WHERE \(line 4\) has a FILTER that needs a comparison of the literals "Car" and "1" by value/);
   });
 
   it('refuses --edit with --baseline, --since, --endpoint and -f sparql-update, each with a reason', async () => {

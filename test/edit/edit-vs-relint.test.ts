@@ -83,6 +83,7 @@ describe('an edit run against two full lints', () => {
       const prepared = await prepareEdit({ editFile: 'edit.ru' }, options('data.nq'));
       if ('errors' in prepared) throw new Error(prepared.errors[0].message);
       const result = await checkEdit(options('data.nq'), prepared);
+      if ('errors' in result) throw new Error(result.errors[0].message);
       expect(result.context.inputErrors, edit).toEqual([]);
       const state = (wanted: string) => fingerprints(result.findings.filter((finding) => finding.baselineState === wanted));
       const inBoth = after.filter((print) => before.includes(print));

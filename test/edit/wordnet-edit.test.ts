@@ -33,7 +33,9 @@ let inverse: CheckResult;
 async function runEdit(options: CheckOptions, inputs: EditInputs): Promise<CheckResult> {
   const prepared = await prepareEdit(inputs, options);
   if ('errors' in prepared) throw new Error(prepared.errors.map((error) => `${error.file}:${error.line}: ${error.message}`).join('\n'));
-  return checkEdit(options, prepared);
+  const result = await checkEdit(options, prepared);
+  if ('errors' in result) throw new Error(result.errors.map((error) => `${error.file}:${error.line}: ${error.message}`).join('\n'));
+  return result;
 }
 
 beforeAll(async () => {
