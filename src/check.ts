@@ -147,6 +147,8 @@ export interface CheckLoadedSteps {
   evaluate?: EvaluateStep;
   /** Allow comments besides the sources' own (an edit file's, for the statements it adds). */
   allowComments?: AllowComment[];
+  /** Files the run reads otherwise (an edit file), not to be listed as left unread in a folder. */
+  alsoRead?: string[];
 }
 
 const buildAndRun: EvaluateStep = ({ sources, roleMap, scope, rules }) => {
@@ -191,7 +193,7 @@ export function checkLoadedWith(loaded: LoadResultWithSkipped, options: CheckOpt
   const inputWarnings = [
     ...loaded.sources.flatMap((source) => source.warnings ?? []),
     ...(graph.problems ?? []),
-    ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
+    ...skippedFileWarnings(loaded.skippedFiles, { cwd, config, alsoRead: steps.alsoRead ?? [] }),
     ...nothingReadWarnings(loaded.sources),
     // Push-down builds no graph here, so it cannot tell which settings match nothing.
     ...(pushDown ? [] : unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] })),
@@ -242,11 +244,12 @@ const SKIPPED_NAMES_SHOWN = 5;
  * One warning naming the files inside the given folders that were left out for their extension, so
  * that nothing is dropped unseen. The config file and rule files in use are read, so not listed.
  */
-function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; config: IsapartConfig }): InputError[] {
+function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; config: IsapartConfig; alsoRead: string[] }): InputError[] {
   const { cwd, config } = settings;
+  const alsoRead = new Set(settings.alsoRead.map((file) => path.resolve(cwd, file)));
   const consumed = (shown: string) => {
     const absolute = path.resolve(cwd, shown);
-    return absolute === config.file || config.ruleDirs.some((folder) => absolute.startsWith(folder + path.sep));
+    return absolute === config.file || alsoRead.has(absolute) || config.ruleDirs.some((folder) => absolute.startsWith(folder + path.sep));
   };
   const skipped = skippedFiles.filter((shown) => !consumed(shown));
   if (skipped.length === 0) return [];

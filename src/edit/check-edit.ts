@@ -88,7 +88,9 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
   const cwd = options.cwd ?? process.cwd();
   const settings = readLoadSettings(options);
   const loaded = await loadPaths(options.paths, options, settings);
-  const before = checkLoadedWith(loaded, options, { startTime });
+  // The edit's own files are read as the edit, so a data folder holding them does not list them as unread.
+  const alsoRead = edit.files.map((file) => file.file);
+  const before = checkLoadedWith(loaded, options, { startTime, alsoRead });
   const delta = editDelta(edit, loaded.sources, {
     keptPredicates: predicatesTheGraphReads(settings.roleMap),
     blankNodePrefix: blankNodeLabelPrefix(edit.file, cwd),
@@ -97,6 +99,7 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
   if ('error' in delta) return { errors: [delta.error] };
   const after = checkLoadedWith(loaded, options, {
     startTime,
+    alsoRead,
     // The edit's allow comments (and those of --add files) apply to the statements it adds; --remove files add no statement to allow.
     allowComments: [...(edit.sparql?.allowComments ?? []), ...edit.addSources.flatMap((source) => source.allowComments)],
     evaluate: ({ roleMap, scope, rules }) => {

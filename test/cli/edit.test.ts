@@ -187,6 +187,17 @@ describe('allow comments in the edit', () => {
   });
 });
 
+describe('an edit file inside the data folder', () => {
+  it('is read as the edit and not listed among the files left unread', async () => {
+    const dir = folderWith({ 'data/assets.ttl': DATA, 'data/notes.txt': 'not RDF', 'data/edits/batch.ru': `${SPARQL_PREFIXES}INSERT DATA { nv:Axle rdfs:subClassOf nv:Component }\n` });
+    const result = await runCli(dir, ['check', 'data', '--edit', 'data/edits/batch.ru']);
+    expect(result.out).toContain('1 file was not read, as its name does not end in');
+    expect(result.out).toContain(': notes.txt');
+    expect(result.out).not.toMatch(/not read[^\n]*batch\.ru/);
+    expect(result.out).toContain('edit data/edits/batch.ru: 1 statement added, 0 removed');
+  });
+});
+
 describe('edit files as editors save them', () => {
   it('reads an edit with a byte order mark and CRLF line ends at the same lines', async () => {
     const text = `\uFEFF${SPARQL_PREFIXES}INSERT DATA {\n  nv:Component rdfs:subClassOf nv:Bogie .\n}\n`.replace(/\n/g, '\r\n');
