@@ -8,10 +8,10 @@ import type { Finding, Level, RuleFailure, RuleLevel } from './engine/finding.js
 import type { RuleDefinition } from './engine/rule.js';
 import { createRegistry, duplicateRuleErrors } from './engine/registry.js';
 import { loadBuiltinRules, loadRuleDir } from './engine/rule-file.js';
-import { runRules } from './engine/run.js';
+import { runRules, type RuleToRun, type RunResult } from './engine/run.js';
 import { applySuppressions, UNUSED_ALLOW_RULE } from './engine/suppress.js';
 import { buildHierarchyGraph } from './graph/build.js';
-import type { HierarchyGraph } from './graph/hierarchy-graph.js';
+import type { HierarchyGraph, ScopeOptions } from './graph/hierarchy-graph.js';
 import type { AllowComment, InputError, LoadedSource } from './load/statement.js';
 import { RDF_EXTENSIONS } from './load/format.js';
 import { loadSources, type LoadResultWithSkipped } from './load/sources.js';
@@ -20,6 +20,7 @@ import { predicatesTheGraphReads } from './graph/read-predicates.js';
 import type { ReportContext, RuleInUse } from './report/context.js';
 import { findingTermFacts } from './report/term-facts.js';
 import { buildRoleMap } from './roles/role-map.js';
+import type { RoleMap } from './roles/role.js';
 import { endpointRequest, loadFromEndpoint, pushDownRules, type EndpointOptions } from './check-endpoint.js';
 import { toolVersion } from './version.js';
 
@@ -54,6 +55,8 @@ export interface CheckResult {
   findings: Finding[];
   context: ReportContext;
   graph: HierarchyGraph;
+  /** The rules' findings and failures before suppression (empty with push-down). */
+  run?: RunResult;
 }
 
 /** Levels from most to least severe, for comparisons. */
@@ -62,12 +65,10 @@ const SEVERITY: Record<Level, number> = { error: 3, warning: 2, note: 1 };
 /** Runs one lint: the whole data flow from sources to suppressed findings. */
 export async function check(options: CheckOptions): Promise<CheckResult> {
   const startTime = new Date();
-  const cwd = options.cwd ?? process.cwd();
   // The loader needs two things from the config: the predicates the graph reads (only their
   // statements are stored, the others are counted as read) and JSON-LD's local contexts.
   // checkLoaded reads the config again and reports its errors.
-  const { config } = readConfig(options, cwd);
-  const roleMap = buildRoleMap(config.presets, config.roles);
+  const { config, roleMap } = readLoadSettings(options);
   if (options.endpoint !== undefined) {
     const endpoint = endpointRequest({ ...options, endpoint: options.endpoint }, config, roleMap);
     const pushDown = options.pushDown === true;
@@ -75,16 +76,33 @@ export async function check(options: CheckOptions): Promise<CheckResult> {
     const pushed = pushDown ? await pushDownRules(endpoint, config, activeRules(config)) : undefined;
     return checkLoaded(loaded, options, startTime, pushed);
   }
-  const loaded = await loadSources(options.paths, {
-    cwd,
+  const loaded = await loadPaths(options.paths, options, { config, roleMap });
+  return checkLoaded(loaded, options, startTime);
+}
+
+/** What loading needs from the config: the config itself (JSON-LD contexts) and the role map (the predicates kept). */
+export interface LoadSettings {
+  config: IsapartConfig;
+  roleMap: RoleMap;
+}
+
+/** The config and role map a run loads with; config errors are left for `checkLoaded` to report. */
+export function readLoadSettings(options: CheckOptions): LoadSettings {
+  const { config } = readConfig(options, options.cwd ?? process.cwd());
+  return { config, roleMap: buildRoleMap(config.presets, config.roles) };
+}
+
+/** Reads paths as a run does: only the statements of predicates the graph reads are kept. */
+export function loadPaths(paths: string[], options: CheckOptions, settings: LoadSettings): Promise<LoadResultWithSkipped> {
+  return loadSources(paths, {
+    cwd: options.cwd ?? process.cwd(),
     stdin: options.stdin,
     baseIri: options.baseIri,
-    contexts: new Map(Object.entries(config.contexts)),
-    keepPredicates: predicatesTheGraphReads(roleMap),
+    contexts: new Map(Object.entries(settings.config.contexts)),
+    keepPredicates: predicatesTheGraphReads(settings.roleMap),
     fastLines: options.fastLines,
     onProgress: options.onProgress,
   });
-  return checkLoaded(loaded, options, startTime);
 }
 
 /** What push-down on an endpoint found, handed to `checkLoaded` instead of running the rules here. */
@@ -115,6 +133,33 @@ export function checkLoaded(
   startTime: Date = new Date(),
   pushed?: PushedDownResults,
 ): CheckResult {
+  return checkLoadedWith(loaded, options, { startTime, pushed });
+}
+
+/** What builds the graph and runs the rules, given the run's roles, scope and active rules. */
+export type EvaluateStep = (input: { sources: LoadedSource[]; roleMap: RoleMap; scope: ScopeOptions; rules: RuleToRun[] }) => { graph: HierarchyGraph; run: RunResult };
+
+/** How `checkLoadedWith` runs: when it started, push-down results, and the step that builds the graph and runs the rules. */
+export interface CheckLoadedSteps {
+  startTime?: Date;
+  pushed?: PushedDownResults;
+  /** Default: build the graph from the sources and run every active rule on it. */
+  evaluate?: EvaluateStep;
+  /** Allow comments besides the sources' own (an edit file's, for the statements it adds). */
+  allowComments?: AllowComment[];
+  /** Files the run reads otherwise (an edit file), not to be listed as left unread in a folder. */
+  alsoRead?: string[];
+}
+
+const buildAndRun: EvaluateStep = ({ sources, roleMap, scope, rules }) => {
+  const graph = buildHierarchyGraph(sources, roleMap, scope);
+  return { graph, run: runRules(graph, rules) };
+};
+
+/** `checkLoaded` with the graph build and rule run replaceable (an edit's findings come from its own step). */
+export function checkLoadedWith(loaded: LoadResultWithSkipped, options: CheckOptions, steps: CheckLoadedSteps): CheckResult {
+  const startTime = steps.startTime ?? new Date();
+  const pushed = steps.pushed;
   const cwd = options.cwd ?? process.cwd();
   const inputErrors: InputError[] = [];
 
@@ -132,25 +177,30 @@ export function checkLoaded(
   for (const source of loaded.sources) inputErrors.push(...source.errors);
 
   const knownIds = new Set([...rules.map((rule) => rule.id), UNUSED_ALLOW_RULE.id]);
-  const allComments = loaded.sources.flatMap((source) => source.allowComments);
+  const allComments = [...loaded.sources.flatMap((source) => source.allowComments), ...(steps.allowComments ?? [])];
   // A comment naming no known rule can suppress nothing: it is an error (with the nearest id), not an unused-allow note.
   const comments = allComments.filter((comment) => knownIds.has(comment.ruleId));
   inputErrors.push(...unknownCommentRuleErrors(allComments, [...knownIds]));
 
-  const graph = buildHierarchyGraph(loaded.sources, roleMap, { prefixes: config.scope, roots: config.roots });
+  const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
+  const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
+  const scope: ScopeOptions = { prefixes: config.scope, roots: config.roots };
+  // Push-down ran the rules already; the graph is still built, for the report's term facts.
+  const evaluated = pushDown
+    ? { graph: buildHierarchyGraph(loaded.sources, roleMap, scope), run: { findings: [], failures: [] } }
+    : (steps.evaluate ?? buildAndRun)({ sources: loaded.sources, roleMap, scope, rules: active });
+  const { graph, run } = evaluated;
   const inputWarnings = [
     ...loaded.sources.flatMap((source) => source.warnings ?? []),
     ...(graph.problems ?? []),
-    ...skippedFileWarnings(loaded.skippedFiles, { cwd, config }),
+    ...skippedFileWarnings(loaded.skippedFiles, { cwd, config, alsoRead: steps.alsoRead ?? [] }),
     ...nothingReadWarnings(loaded.sources),
     // Push-down builds no graph here, so it cannot tell which settings match nothing.
     ...(pushDown ? [] : unmatchedSettingWarnings(graph, config, { commandLineScope: options.scope ?? [], commandLineRoots: options.roots ?? [] })),
   ];
-  const rulesInUse: RuleInUse[] = rules.map((rule) => ({ rule, level: config.rules[rule.id] ?? rule.level }));
-  const active = rulesInUse.flatMap(({ rule, level }) => (level === 'off' ? [] : [{ rule, level }]));
   if (pushed !== undefined) inputErrors.push(...pushed.errors);
   if (pushed !== undefined) inputWarnings.push(...pushed.warnings);
-  const { findings: raw, failures } = pushed ?? runRules(graph, active);
+  const { findings: raw, failures } = pushed ?? run;
 
   const unusedLevel = config.rules[UNUSED_ALLOW_RULE.id] ?? UNUSED_ALLOW_RULE.level;
   const { findings: suppressed, unused } = applySuppressions(raw, comments, config.allow);
@@ -184,7 +234,7 @@ export function checkLoaded(
     endTime: new Date(),
     commandLine: options.commandLine ?? `isapart check ${options.paths.join(' ')}`,
   };
-  return { findings, context, graph };
+  return { findings, context, graph, run };
 }
 
 /** How many skipped file names one warning lists before it only counts the rest. */
@@ -194,11 +244,12 @@ const SKIPPED_NAMES_SHOWN = 5;
  * One warning naming the files inside the given folders that were left out for their extension, so
  * that nothing is dropped unseen. The config file and rule files in use are read, so not listed.
  */
-function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; config: IsapartConfig }): InputError[] {
+function skippedFileWarnings(skippedFiles: string[], settings: { cwd: string; config: IsapartConfig; alsoRead: string[] }): InputError[] {
   const { cwd, config } = settings;
+  const alsoRead = new Set(settings.alsoRead.map((file) => path.resolve(cwd, file)));
   const consumed = (shown: string) => {
     const absolute = path.resolve(cwd, shown);
-    return absolute === config.file || config.ruleDirs.some((folder) => absolute.startsWith(folder + path.sep));
+    return absolute === config.file || alsoRead.has(absolute) || config.ruleDirs.some((folder) => absolute.startsWith(folder + path.sep));
   };
   const skipped = skippedFiles.filter((shown) => !consumed(shown));
   if (skipped.length === 0) return [];

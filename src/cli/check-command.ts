@@ -4,6 +4,7 @@ import { prepareBaseline, type BaselineSource } from '../baseline/apply.js';
 import { isNewOrUncompared } from '../baseline/compare.js';
 import { atOrAbove, check, exitCodeFor, parseRuleLevel, type CheckOptions, type FailOn } from '../check.js';
 import { iriProblem } from '../config/iri-check.js';
+import { checkEdit, prepareEdit, type EditInputs } from '../edit/check-edit.js';
 import type { Finding, Level } from '../engine/finding.js';
 import { textRemovalsFor } from '../fix/removals.js';
 import { toHtml } from '../report/html/html.js';
@@ -36,6 +37,30 @@ export interface CheckCommandOptions {
   endpoint?: string;
   graph?: string;
   pushDown?: boolean;
+  /** --edit files; more than one is refused. */
+  edit?: string[];
+  add?: string[];
+  remove?: string[];
+}
+
+/** Why the edit options cannot be used with the others given, or undefined when they can. */
+function editUsageProblem(options: CheckCommandOptions): string | undefined {
+  if ((options.edit ?? []).length > 1) {
+    return `--edit takes one SPARQL Update file (given: ${options.edit!.join(', ')}); put the operations in one file, separated by ;, in the order they are to run`;
+  }
+  const given = [options.edit !== undefined ? '--edit' : '', (options.add ?? []).length > 0 ? '--add' : '', (options.remove ?? []).length > 0 ? '--remove' : ''].filter(Boolean);
+  if (given.length === 0) return undefined;
+  const named = given.join('/');
+  if (options.baseline !== undefined || options.since !== undefined) {
+    return `${named} compares the data with itself after the edit, which is its own baseline; leave out ${options.baseline !== undefined ? '--baseline' : '--since'}, or compare with a baseline in a separate run`;
+  }
+  if (options.endpoint !== undefined) {
+    return `${named} lints an edit of files; to lint an edit of an endpoint's data, export the graph to a file (e.g. a CONSTRUCT query saved as N-Triples) and give it as the data path`;
+  }
+  if (options.format === 'sparql-update') {
+    return `-f sparql-update writes a fix script for the data as it is, and ${named} lints data that does not exist yet; fix the edit file instead (its new findings name the edit's lines), or run without ${named} for the data's fix script`;
+  }
+  return undefined;
 }
 
 /** Why the endpoint options cannot be used together with the paths given, or undefined when they can. */
@@ -99,6 +124,11 @@ export async function runCheckCommand(
     terminal.err(`isapart: --base ${options.base}: not an absolute IRI: ${baseProblem}\n  hint: give the IRI the document's relative IRIs resolve against, such as https://data.northvale-rail.example/def/\n`);
     return 2;
   }
+  const editProblem = editUsageProblem(options);
+  if (editProblem !== undefined) {
+    terminal.err(`isapart: ${editProblem}\n`);
+    return 2;
+  }
   const endpointProblem = endpointUsageProblem(paths, options);
   if (endpointProblem !== undefined) {
     terminal.err(`isapart: ${endpointProblem}\n`);
@@ -144,7 +174,20 @@ export async function runCheckCommand(
     printInputErrors([baseline.error], terminal);
     return 2;
   }
-  let result = await check(checkOptions).finally(() => bar?.stop());
+  const editInputs: EditInputs = { editFile: options.edit?.[0], addFiles: options.add ?? [], removeFiles: options.remove ?? [] };
+  const editing = editInputs.editFile !== undefined || (editInputs.addFiles ?? []).length > 0 || (editInputs.removeFiles ?? []).length > 0;
+  // The edit is read and checked before the data, so a refused operation does not wait for a long load.
+  const edit = editing ? await prepareEdit(editInputs, checkOptions) : undefined;
+  if (edit !== undefined && 'errors' in edit) {
+    printInputErrors(edit.errors, terminal);
+    return 2;
+  }
+  const checked = await (edit === undefined ? check(checkOptions) : checkEdit(checkOptions, edit)).finally(() => bar?.stop());
+  if ('errors' in checked) {
+    printInputErrors(checked.errors, terminal);
+    return 2;
+  }
+  let result = checked;
   if (baseline !== undefined) {
     const compared = await baseline.prepared(result);
     if ('error' in compared) {

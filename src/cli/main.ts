@@ -28,6 +28,19 @@ Examples:
   $ isapart check --endpoint http://127.0.0.1:8890/sparql --push-down
                                                  run every rule as a SPARQL query on the endpoint itself
 
+  $ isapart check data/ --edit retire-class.ru   what a bulk edit would introduce and resolve, before it runs
+  $ isapart check data/ --remove old.nt --add new.ttl --fail-on warning
+                                                 the same for statements given as RDF files
+
+Edits: --edit reads a SPARQL 1.1 Update (INSERT DATA, DELETE DATA, DELETE/INSERT ... WHERE with
+triple patterns, GRAPH, VALUES and FILTER tests such as != and NOT EXISTS); isapart applies it to
+the statements it read, in memory only, then --remove and --add files. Each finding is new (the
+edit introduces it), unchanged, or no longer found (the edit resolves it); a new finding's evidence
+names the edit's lines. Exit 1 when the edit introduces findings at or above --fail-on.
+LOAD, CLEAR, DROP and the like, SERVICE, OPTIONAL, UNION, BIND, property paths and FILTER
+functions are refused with their line: state the statements instead.
+isapart only reads the edit, never runs it: review it and run it on a copy of the store first.
+
 Baselines: a finding is new, unchanged (its fingerprint is in the baseline) or absent (only in the
 baseline); only new ones count for the exit code and the summary. --since needs the revision in the
 clone (in a shallow CI clone, fetch it first: git fetch --depth=1 origin main).
@@ -117,6 +130,9 @@ function buildProgram(terminal: Terminal, commandLine: string, setExit: (code: n
     .option('--endpoint <url>', 'read the hierarchy from a SPARQL 1.1 endpoint instead of files (paged SELECT queries)')
     .option('--graph <iri>', 'with --endpoint: read this named graph (default: the endpoint\'s default graph)')
     .option('--push-down', 'with --endpoint: run the rules as SPARQL queries on the endpoint instead of extracting')
+    .option('--edit <file>', 'lint a SPARQL 1.1 Update before it runs: report the findings it would introduce and resolve (nothing is written)', collect)
+    .option('--add <file>', 'with or instead of --edit: an RDF file of statements the edit adds (repeatable)', collect)
+    .option('--remove <file>', 'with or instead of --edit: an RDF file of statements the edit removes (repeatable)', collect)
     .addHelpText('after', CHECK_EXAMPLES)
     .action(async (paths: string[], options: CheckCommandOptions) => {
       setExit(await runCheckCommand(paths, options, terminal, commandLine));

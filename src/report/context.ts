@@ -12,6 +12,20 @@ export interface RuleInUse {
   level: RuleLevel;
 }
 
+/** What an edit run compared: the edit's files, and how many statements it adds, removes and ignores. */
+export interface EditReport {
+  /** The --edit file (a SPARQL 1.1 Update) and the --add / --remove files, in that order. */
+  files: { file: string; role: 'edit' | 'add' | 'remove'; format: RdfFormat | 'sparql-update' }[];
+  added: number;
+  removed: number;
+  /** Of the removed statements, those the data does not state (removing them changes nothing). */
+  removedAbsent: number;
+  /** Statements of the edit whose predicate the hierarchy does not read. */
+  ignored: number;
+  /** The statements the edit removes, at their places in the edit (so a resolved finding can name them). */
+  removals?: Statement[];
+}
+
 /** The context of one run, passed to every formatter beside the findings. */
 export interface ReportContext {
   toolName: 'isapart';
@@ -42,6 +56,8 @@ export interface ReportContext {
   commandLine: string;
   /** When findings were compared with a baseline: what it was (a file, or a git revision), as shown to people. */
   baseline?: { source: string };
+  /** When the findings are those of an edit compared with the data before it (`--edit`, `--add`, `--remove`). */
+  edit?: EditReport;
   /** Fix statements whose removal is a safe deletion of whole lines of their file (for SARIF fixes). */
   removals?: ReadonlyMap<Statement, LineRemoval>;
 }

@@ -58,6 +58,16 @@ export interface JsonReport {
     statements: number;
     /** With a baseline: what it was, and how many findings are new, unchanged or absent (level counts are of new ones only). */
     baseline?: { source: string; new: number; unchanged: number; absent: number };
+    /** With an edit: its files, its statements, and how many findings it introduces, leaves and resolves. */
+    edit?: {
+      files: { file: string; role: 'edit' | 'add' | 'remove'; format: RdfFormat | 'sparql-update' }[];
+      added: number;
+      removed: number;
+      ignored: number;
+      introduced: number;
+      unchanged: number;
+      resolved: number;
+    };
   };
   inputs: { file: string; format: RdfFormat; statements: number }[];
   findings: JsonFinding[];
@@ -87,6 +97,19 @@ export function toJsonReport(findings: Finding[], context: ReportContext): JsonR
       ...(context.baseline === undefined
         ? {}
         : { baseline: { source: context.baseline.source, new: findings.length - counts.unchanged - counts.absent, unchanged: counts.unchanged, absent: counts.absent } }),
+      ...(context.edit === undefined
+        ? {}
+        : {
+            edit: {
+              files: context.edit.files.map((file) => ({ file: relativePath(file.file, cwd), role: file.role, format: file.format })),
+              added: context.edit.added,
+              removed: context.edit.removed,
+              ignored: context.edit.ignored,
+              introduced: findings.length - counts.unchanged - counts.absent,
+              unchanged: counts.unchanged,
+              resolved: counts.absent,
+            },
+          }),
     },
     inputs: context.sources.map((source) => ({
       file: relativePath(source.file, cwd),

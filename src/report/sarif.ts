@@ -31,6 +31,15 @@ const MEDIA_TYPES: Record<RdfFormat, string> = {
   'json-ld': 'application/ld+json',
 };
 
+// The media type of a SPARQL 1.1 Update (W3C SPARQL 1.1 Update, its appendix registering application/sparql-update; from memory).
+const SPARQL_UPDATE_MEDIA_TYPE = 'application/sparql-update';
+
+/** The edit's files that are not among the data sources, in order. */
+function editFiles(context: ReportContext): NonNullable<ReportContext['edit']>['files'] {
+  const data = new Set(context.sources.map((source) => source.file));
+  return (context.edit?.files ?? []).filter((file) => !data.has(file.file));
+}
+
 // Notification descriptors of the driver, in this order (notifications refer to them by index).
 const NOTIFICATIONS = [
   { id: 'input-error', shortDescription: { text: 'A source, statement or config entry could not be read.' } },
@@ -59,7 +68,7 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
   const writer: SarifWriter = {
     cwd: context.cwd,
     terms: createTermWriter(),
-    artifactIndex: new Map(context.sources.map((source, index) => [relativePath(source.file, context.cwd), index])),
+    artifactIndex: new Map([...context.sources.map((source) => source.file), ...editFiles(context).map((file) => file.file)].map((file, index) => [relativePath(file, context.cwd), index])),
     ruleIndex: new Map(rules.map((ruleInUse, index) => [ruleInUse.rule.id, index])),
     withBaseline: context.baseline !== undefined || findings.some((finding) => finding.baselineState !== undefined),
     removals: context.removals ?? new Map(),
@@ -94,12 +103,21 @@ export function toSarif(findings: Finding[], context: ReportContext): string {
           },
         ],
         originalUriBaseIds: { [PROJECT_ROOT_BASE_ID]: { uri: folderUri(context.cwd) } },
-        artifacts: context.sources.map((source) => ({
-          location: artifactLocation(source.file, writer),
-          mimeType: MEDIA_TYPES[source.format],
-          roles: ['analysisTarget'],
-          properties: { format: source.format, statements: source.statements },
-        })),
+        artifacts: [
+          ...context.sources.map((source) => ({
+            location: artifactLocation(source.file, writer),
+            mimeType: MEDIA_TYPES[source.format],
+            roles: ['analysisTarget'],
+            properties: { format: source.format, statements: source.statements },
+          })),
+          // The edit's files: the statements they add or remove are evidence of the findings they introduce.
+          ...editFiles(context).map((file) => ({
+            location: artifactLocation(file.file, writer),
+            mimeType: file.format === 'sparql-update' ? SPARQL_UPDATE_MEDIA_TYPE : MEDIA_TYPES[file.format],
+            roles: ['analysisTarget', 'referencedOnCommandLine'],
+            properties: { format: file.format, edit: file.role },
+          })),
+        ],
         columnKind: 'utf16CodeUnits',
         results: sortFindings(findings).map((finding) => result(finding, writer)),
         properties: { [FINDINGS_VERSION_PROPERTY]: JSON_REPORT_VERSION },

@@ -1,5 +1,6 @@
 // The text report: findings grouped by file for a terminal, coloured with chalk when asked.
 import { Chalk, type ChalkInstance } from 'chalk';
+import { statementKey } from '../edit/delta.js';
 import type { Finding, Level } from '../engine/finding.js';
 import type { InputError, Position } from '../load/statement.js';
 import type { ReportContext } from './context.js';
@@ -39,10 +40,11 @@ export function toText(findings: Finding[], context: TextReportContext): string 
     ruleFailuresSection(context, writer),
     ...fileSections(listed.filter((finding) => !finding.suppression), writer),
     allowedSection(listed.filter((finding) => finding.suppression), writer),
-    absentSection(findings.filter((finding) => finding.baselineState === 'absent'), writer),
+    absentSection(findings.filter((finding) => finding.baselineState === 'absent'), writer, context.edit),
     baselineSection(context, counts, listed.length),
+    editSection(context, writer),
   ].filter((section) => section.length > 0);
-  sections.push([summaryLine(counts, writer.paint, context.baseline !== undefined)]);
+  sections.push([summaryLine(counts, writer.paint, context.baseline !== undefined || context.edit !== undefined, context.edit !== undefined)]);
   return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
 }
 
@@ -114,10 +116,16 @@ function allowedSection(suppressed: Finding[], writer: TextWriter): string[] {
 }
 
 /** Findings of the baseline that this run no longer has, each with its rule and message. */
-function absentSection(absent: Finding[], writer: TextWriter): string[] {
+function absentSection(absent: Finding[], writer: TextWriter, edit: ReportContext['edit']): string[] {
   if (absent.length === 0) return [];
-  const lines = [writer.paint.bold(`no longer found (${absent.length})`)];
-  for (const finding of sortFindings(absent)) lines.push(`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`);
+  const lines = [writer.paint.bold(`${edit !== undefined ? 'resolved by the edit' : 'no longer found'} (${absent.length})`)];
+  // An edit names the statements of its own that a resolved finding's evidence loses.
+  const removals = new Map((edit?.removals ?? []).map((statement) => [statementKey(statement), statement]));
+  for (const finding of sortFindings(absent)) {
+    lines.push(`${FINDING_INDENT}${levelWord(finding.level, writer.paint)}  ${finding.ruleId}  ${finding.message}`);
+    const removed = new Set(finding.evidence.flatMap((statement) => removals.get(statementKey(statement)) ?? []));
+    for (const statement of removed) lines.push(`${DETAIL_INDENT}removed: ${evidenceWhere(statement.position, writer)}${writer.terms.statement(statement)}`);
+  }
   return lines;
 }
 
@@ -128,13 +136,25 @@ function baselineSection(context: ReportContext, counts: FindingCounts, newCount
   return [`compared with ${context.baseline.source}: ${newCount} new, ${counts.unchanged} unchanged (not listed), ${gone}`];
 }
 
-function summaryLine(counts: FindingCounts, paint: ChalkInstance, withBaseline: boolean): string {
+/** What the edit read and changed: its files and its statements added, removed and ignored. */
+function editSection(context: ReportContext, writer: TextWriter): string[] {
+  const edit = context.edit;
+  if (edit === undefined) return [];
+  const files = edit.files.map((file) => `${file.role === 'edit' ? '' : `--${file.role} `}${relativePath(file.file, writer.cwd)}`).join(', ');
+  const absent = edit.removedAbsent === 0 ? '' : ` (${edit.removedAbsent} of them not in the data)`;
+  const ignored = edit.ignored === 0 ? '' : `, ${plural(edit.ignored, 'statement')} ignored (no role reads ${edit.ignored === 1 ? 'its' : 'their'} predicate)`;
+  return [`edit ${files}: ${plural(edit.added, 'statement')} added, ${edit.removed} removed${absent}${ignored}; nothing was written`];
+}
+
+function summaryLine(counts: FindingCounts, paint: ChalkInstance, withBaseline: boolean, withEdit: boolean): string {
   const levelCounts = LEVELS.map((level) => {
     const text = plural(counts[level], withBaseline ? `new ${level}` : level);
     return counts[level] > 0 ? paintForLevel(level, paint)(text) : text;
   });
-  const parts = [levelCounts.join(', '), `${counts.suppressed} allowed`];
-  if (withBaseline) parts.push(`${counts.unchanged} unchanged`, `${counts.absent} no longer found`);
+  const introduced = counts.error + counts.warning + counts.note;
+  const parts = [withEdit ? `introduces ${introduced}, resolves ${counts.absent}: ${levelCounts.join(', ')}` : levelCounts.join(', '), `${counts.suppressed} allowed`];
+  if (withEdit) parts.push(`${counts.unchanged} unchanged`);
+  else if (withBaseline) parts.push(`${counts.unchanged} unchanged`, `${counts.absent} no longer found`);
   if (counts.inputErrors > 0) parts.push(paint.red(plural(counts.inputErrors, 'input error')));
   if (counts.ruleFailures > 0) parts.push(paint.red(plural(counts.ruleFailures, 'rule failure')));
   parts.push(`${plural(counts.files, 'file')} and ${plural(counts.statements, 'statement')} read`);

@@ -34,7 +34,7 @@ export function overviewSection(findings: readonly Finding[], context: ReportCon
     `<figure><figcaption>Findings per level (allowed ones left out)</figcaption>${barChart(levelBars, 'Findings per level')}</figure>`,
     ruleBars.length === 0 ? '' : `<figure><figcaption>Findings per rule</figcaption>${barChart(ruleBars, 'Findings per rule')}</figure>`,
     '</div>',
-    allowedAndBaseline(findings),
+    allowedAndBaseline(findings, context.edit !== undefined),
     problemsList('Input errors', 'input-errors', context.inputErrors, context.cwd),
     problemsList('Input warnings', 'input-warnings', context.inputWarnings ?? [], context.cwd),
     ruleFailures(context),
@@ -45,7 +45,7 @@ export function overviewSection(findings: readonly Finding[], context: ReportCon
   return parts.join('');
 }
 
-function allowedAndBaseline(findings: readonly Finding[]): string {
+function allowedAndBaseline(findings: readonly Finding[], byEdit: boolean): string {
   const allowed = findings.filter((finding) => finding.suppression);
   const byComment = allowed.filter((finding) => finding.suppression!.kind === 'inSource').length;
   const lines = [
@@ -57,8 +57,11 @@ function allowedAndBaseline(findings: readonly Finding[]): string {
       return `<td data-baseline-count="${state}">${count}</td>`;
     });
     lines.push(
-      '<table class="plain" id="baseline-counts"><caption>Compared with the baseline</caption>' +
-        `<tr><th>new</th><th>unchanged</th><th>absent (only in the baseline)</th></tr><tr>${cells.join('')}</tr></table>`,
+      byEdit
+        ? '<table class="plain" id="baseline-counts"><caption>The edit compared with the data before it</caption>' +
+            `<tr><th>new (the edit introduces)</th><th>unchanged</th><th>absent (the edit resolves)</th></tr><tr>${cells.join('')}</tr></table>`
+        : '<table class="plain" id="baseline-counts"><caption>Compared with the baseline</caption>' +
+            `<tr><th>new</th><th>unchanged</th><th>absent (only in the baseline)</th></tr><tr>${cells.join('')}</tr></table>`,
     );
   }
   return lines.join('');
