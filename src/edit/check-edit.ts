@@ -6,7 +6,7 @@ import { checkLoadedWith, loadPaths, readLoadSettings, type CheckOptions, type C
 import { predicatesTheGraphReads } from '../graph/read-predicates.js';
 import { blankNodeLabelPrefix, defaultBaseIri } from '../load/parse.js';
 import type { InputError, LoadedSource, Statement } from '../load/statement.js';
-import type { EditReport } from '../report/context.js';
+import type { EditEvaluationNote, EditReport } from '../report/context.js';
 import { applySparqlEdit } from './apply-sparql-edit.js';
 import { statementKey, type EditDelta } from './delta.js';
 import { evaluateEdit } from './evaluate-edit.js';
@@ -97,6 +97,7 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
   });
   // A FILTER that turns out to compare literals by value is refused when met, before any finding is reported.
   if ('error' in delta) return { errors: [delta.error] };
+  let evaluation: EditEvaluationNote | undefined;
   const after = checkLoadedWith(loaded, options, {
     startTime,
     alsoRead,
@@ -104,6 +105,7 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
     allowComments: [...(edit.sparql?.allowComments ?? []), ...edit.addSources.flatMap((source) => source.allowComments)],
     evaluate: ({ roleMap, scope, rules }) => {
       const evaluated = evaluateEdit({ sources: loaded.sources, graph: before.graph, roles: roleMap, scope, rules, before: before.run ?? { findings: [], failures: [] }, delta });
+      evaluation = evaluated.note;
       return { graph: evaluated.graph, run: evaluated.result };
     },
   });
@@ -114,6 +116,7 @@ export async function checkEdit(options: CheckOptions, edit: PreparedEdit): Prom
     removedAbsent: removedNotInData(delta, loaded.sources),
     ignored: delta.ignored,
     removals: delta.removed,
+    evaluation,
   };
   return {
     ...after,

@@ -1,10 +1,12 @@
 // The one place an edit's findings are computed: the graph with the edit applied, and the rules' findings on it.
-import { runRules, type RuleToRun, type RunResult } from '../engine/run.js';
-import { buildHierarchyGraph } from '../graph/build.js';
+import { rerunRules } from '../engine/incremental.js';
+import type { RuleToRun, RunResult } from '../engine/run.js';
+import { applyEditToGraph } from '../graph/apply-edit.js';
+import type { EditEvaluationNote } from '../report/context.js';
 import type { HierarchyGraph, ScopeOptions } from '../graph/hierarchy-graph.js';
 import type { LoadedSource } from '../load/statement.js';
 import type { RoleMap } from '../roles/role.js';
-import { editedSources, type EditDelta } from './delta.js';
+import type { EditDelta } from './delta.js';
 
 /** Everything the evaluation of an edit may use: the run before the edit and the edit itself. */
 export interface EditEvaluationInput {
@@ -25,14 +27,23 @@ export interface EditEvaluationInput {
 export interface EditEvaluation {
   graph: HierarchyGraph;
   result: RunResult;
+  /** Whether the graph was patched, and which rules ran in full. */
+  note: EditEvaluationNote;
 }
 
 /**
- * Evaluates the rules on the data as the edit would leave it. This rebuilds the graph from the
- * edited statements (`editedSources`) and runs every rule; an incremental evaluation must give
- * the same findings.
+ * Evaluates the rules on the data as the edit would leave it, incrementally: the built graph is
+ * patched with the delta (`applyEditToGraph`, which rebuilds from the edited statements where it
+ * cannot patch soundly) and each rule is re-run around the changed nodes (`rerunRules`). The
+ * result equals a rebuild from `editedSources` with every rule run; test/edit/ holds it to that.
  */
 export function evaluateEdit(input: EditEvaluationInput): EditEvaluation {
-  const graph = buildHierarchyGraph(editedSources(input.sources, input.delta), input.roles, input.scope);
-  return { graph, result: runRules(graph, input.rules) };
+  const applied = applyEditToGraph(input.graph, input.delta, input.roles, input.scope);
+  const rerun = rerunRules({ graph: input.graph, result: input.before }, applied, input.rules);
+  const note: EditEvaluationNote = {
+    rebuiltBecause: applied.changes.rebuilt ? applied.changes.reason ?? 'it could not be patched' : undefined,
+    fullRuns: applied.changes.rebuilt ? [] : rerun.fullRuns,
+    rules: input.rules.length,
+  };
+  return { graph: applied.graph, result: { findings: rerun.findings, failures: rerun.failures }, note };
 }

@@ -24,6 +24,18 @@ export interface EditReport {
   ignored: number;
   /** The statements the edit removes, at their places in the edit (so a resolved finding can name them). */
   removals?: Statement[];
+  /** How the edited data's findings were computed: the graph patched or rebuilt, and the rules that ran in full. */
+  evaluation?: EditEvaluationNote;
+}
+
+/** How an edit was evaluated: on the patched graph, re-running rules around the changes, or in full where it could not. */
+export interface EditEvaluationNote {
+  /** Why the graph was rebuilt from the edited statements instead of patched; undefined when patched. */
+  rebuiltBecause?: string;
+  /** Rules that ran over the whole edited graph rather than around the changes, with why. */
+  fullRuns: { ruleId: string; reason: string }[];
+  /** How many rules ran in all. */
+  rules: number;
 }
 
 /** The context of one run, passed to every formatter beside the findings. */

@@ -143,7 +143,14 @@ function editSection(context: ReportContext, writer: TextWriter): string[] {
   const files = edit.files.map((file) => `${file.role === 'edit' ? '' : `--${file.role} `}${relativePath(file.file, writer.cwd)}`).join(', ');
   const absent = edit.removedAbsent === 0 ? '' : ` (${edit.removedAbsent} of them not in the data)`;
   const ignored = edit.ignored === 0 ? '' : `, ${plural(edit.ignored, 'statement')} ignored (no role reads ${edit.ignored === 1 ? 'its' : 'their'} predicate)`;
-  return [`edit ${files}: ${plural(edit.added, 'statement')} added, ${edit.removed} removed${absent}${ignored}; nothing was written`];
+  const lines = [`edit ${files}: ${plural(edit.added, 'statement')} added, ${edit.removed} removed${absent}${ignored}; nothing was written`];
+  const how = edit.evaluation;
+  if (how !== undefined && how.rebuiltBecause !== undefined) lines.push(`the edited graph was rebuilt from its statements, as ${how.rebuiltBecause}`);
+  if (how !== undefined && how.rebuiltBecause === undefined && how.fullRuns.length > 0) {
+    const named = how.fullRuns.map((run) => `${run.ruleId} (${run.reason})`).join(', ');
+    lines.push(`${plural(how.fullRuns.length, 'rule')} of ${how.rules} ran over the whole edited graph: ${named}`);
+  }
+  return lines;
 }
 
 function summaryLine(counts: FindingCounts, paint: ChalkInstance, withBaseline: boolean, withEdit: boolean): string {
