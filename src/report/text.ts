@@ -145,7 +145,7 @@ function editSection(context: ReportContext, writer: TextWriter): string[] {
   const ignored = edit.ignored === 0 ? '' : `, ${plural(edit.ignored, 'statement')} ignored (no role reads ${edit.ignored === 1 ? 'its' : 'their'} predicate)`;
   const lines = [`edit ${files}: ${plural(edit.added, 'statement')} added, ${edit.removed} removed${absent}${ignored}; nothing was written`];
   const how = edit.evaluation;
-  if (how !== undefined && how.rebuiltBecause !== undefined) lines.push(`the edited graph was rebuilt from its statements, as ${how.rebuiltBecause}`);
+  if (how !== undefined && how.rebuiltBecause !== undefined) lines.push(`not patched in place: ${how.rebuiltBecause} from the edited statements`);
   if (how !== undefined && how.rebuiltBecause === undefined && how.fullRuns.length > 0) {
     const named = how.fullRuns.map((run) => `${run.ruleId} (${run.reason})`).join(', ');
     lines.push(`${plural(how.fullRuns.length, 'rule')} of ${how.rules} ran over the whole edited graph: ${named}`);

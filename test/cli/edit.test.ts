@@ -289,3 +289,22 @@ describe('machine-readable reports of an edit', () => {
     expect(result.out).toContain('data-baseline="new"');
   });
 });
+
+describe('how an edit is evaluated', () => {
+  it('says nothing extra when the graph is patched, and says why when an edit naming a blank node makes it rebuild', async () => {
+    const patchedDir = folderWith({ 'data.ttl': DATA, 'edit.ru': `${SPARQL_PREFIXES}INSERT DATA { nv:Asset rdfs:subClassOf nv:Car . }\n` });
+    const patched = await runCli(patchedDir, ['check', 'data.ttl', '--edit', 'edit.ru', '--fail-on', 'never']);
+    expect(summaryOf(patched.out)).toMatch(/^introduces 1, resolves 1/);
+    expect(patched.out).not.toContain('rebuilt');
+    expect(patched.out).not.toContain('ran over the whole edited graph');
+
+    // The same cycle closed through a blank node: the graph is rebuilt, and the findings are still the edit's.
+    const blankDir = folderWith({
+      'data.ttl': DATA,
+      'edit.ru': `${SPARQL_PREFIXES}INSERT DATA { nv:Asset rdfs:subClassOf _:middle . _:middle rdfs:subClassOf nv:Car . }\n`,
+    });
+    const rebuilt = await runCli(blankDir, ['check', 'data.ttl', '--edit', 'edit.ru', '--fail-on', 'never']);
+    expect(summaryOf(rebuilt.out)).toMatch(/^introduces 1, resolves 1/);
+    expect(rebuilt.out).toContain('not patched in place: the edit names a blank node (at edit.ru:3), whose scope depends on every statement about it, so the graph is rebuilt from the edited statements');
+  });
+});
