@@ -57,15 +57,15 @@ const SUBJECT_SIDE_PREFERENCE = 2;
  */
 class SideSearch {
   private readonly states: number;
-  /** Per state: the moves into it, as (from state, role, whether the move walks its role backwards). */
-  private readonly incoming: { from: number; role: Role; backward: boolean }[][];
+  /** Per state: the moves into it, as the state they leave and the CSR columns (offsets, neighbours) that walk them back, one pair per graph. */
+  private readonly incoming: { from: number; columns: [Int32Array, Int32Array][] }[][];
   private readonly visited: Uint8Array;
   private readonly queue: number[] = [];
   private head = 0;
   private readonly found = new Set<number>();
 
   constructor(
-    private readonly view: EditView,
+    view: EditView,
     path: PathExpression,
     inverted: boolean,
     private readonly keep: (id: number) => boolean = () => true,
@@ -79,7 +79,8 @@ class SideSearch {
       for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
         const role = ROLES[automaton.transitionRole[move]];
         const backward = automaton.transitionDirection[move] === BACKWARD;
-        this.incoming[automaton.transitionTarget[move]].push({ from: state, role, backward });
+        // The walk came into a node over this move: from a predecessor for a forward step, a successor for a backward one.
+        this.incoming[automaton.transitionTarget[move]].push({ from: state, columns: view.neighbourColumns(role, backward) });
         // A walk at `state` that takes this move over a changed edge stands at the edge's start (its end, walked backwards).
         const edges = view.changes.edges[role];
         for (const list of [edges.added, edges.removed]) {
@@ -106,12 +107,13 @@ class SideSearch {
       const node = Math.floor(pair / states);
       const state = pair - node * states;
       if (state === 0) this.found.add(node);
-      for (const { from, role, backward } of this.incoming[state]) {
-        // The walk came into `node` over this move: from a predecessor for a forward step, a successor for a backward one.
-        for (const columns of this.view.neighbourColumns(role, backward)) {
-          const [offsets, column] = columns;
+      const moves = this.incoming[state];
+      for (let move = 0; move < moves.length; move++) {
+        const { from, columns } = moves[move];
+        for (let graph = 0; graph < columns.length; graph++) {
+          const [offsets, column] = columns[graph];
           if (node + 1 >= offsets.length) continue;
-          for (let index = offsets[node]; index < offsets[node + 1]; index++) this.push(column[index], from);
+          for (let index = offsets[node], end = offsets[node + 1]; index < end; index++) this.push(column[index], from);
         }
       }
     }
