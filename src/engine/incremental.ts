@@ -1,7 +1,6 @@
 // Re-runs rules after an edit around the changed nodes only, giving the findings a full run would.
 import type { GraphChanges } from '../graph/apply-edit.js';
 import { BuiltHierarchyGraph } from '../graph/built-graph.js';
-import type { RoleAdjacency } from '../graph/csr.js';
 import type { HierarchyGraph, NodeKind } from '../graph/hierarchy-graph.js';
 import type { Statement } from '../load/statement.js';
 import { ROLES, type Role } from '../roles/role.js';
@@ -22,8 +21,9 @@ import { compareFindings, findingsOf, messageFollowsNodes, planContextFor, runRu
  * or vanished node: every positive entry's seed set holds those), or has some entry whose truth
  * differs between the graphs. Per entry, that can happen only here:
  * - `[?s, P, ?o]`: a walk of P from s to o exists in one graph only, so it steps over a changed
- *   edge; the walk's part before that edge lies in one graph, so s reaches the edge by P's
- *   automaton over old ∪ new edges (s ∈ A_P), and symmetrically o ∈ B_P. One of the two suffices.
+ *   edge; the walk's part before its first changed edge has unchanged edges only, which both graphs
+ *   have, so s reaches that edge by P's automaton over the new graph's edges (s ∈ A_P), and
+ *   symmetrically (the part after its last changed edge) o ∈ B_P. One of the two suffices.
  * - `{is: [?x, K]}`: x's K bit differs. The focus being in scope is such an entry too.
  * - `{absent: [?x, P]}`: the walks of P from x differ, so x ∈ A_P.
  * - `cycle` over X: a component whose members or walk differ holds a node whose X-steps differ (an
@@ -53,12 +53,12 @@ const SUBJECT_SIDE_PREFERENCE = 2;
 
 /**
  * The search behind A_P: breadth-first over (node, automaton state) pairs, backwards from the
- * changed edges, over the edges of both graphs; resumable, so two can run in step.
+ * changed edges, over the new graph's edges; resumable, so two can run in step.
  */
 class SideSearch {
   private readonly states: number;
-  /** Per state: the moves into it, as the state they leave and the CSR columns (offsets, neighbours) that walk them back, one pair per graph. */
-  private readonly incoming: { from: number; columns: [Int32Array, Int32Array][] }[][];
+  /** Per state: the moves into it, as the state they leave and the new graph's neighbours that walk them back. */
+  private readonly incoming: { from: number; neighbours: NeighbourColumns }[][];
   private readonly visited: Uint8Array;
   private readonly queue: number[] = [];
   private head = 0;
@@ -80,7 +80,7 @@ class SideSearch {
         const role = ROLES[automaton.transitionRole[move]];
         const backward = automaton.transitionDirection[move] === BACKWARD;
         // The walk came into a node over this move: from a predecessor for a forward step, a successor for a backward one.
-        this.incoming[automaton.transitionTarget[move]].push({ from: state, columns: view.neighbourColumns(role, backward) });
+        this.incoming[automaton.transitionTarget[move]].push({ from: state, neighbours: view.newNeighbours(role, backward) });
         // A walk at `state` that takes this move over a changed edge stands at the edge's start (its end, walked backwards).
         const edges = view.changes.edges[role];
         for (const list of [edges.added, edges.removed]) {
@@ -109,12 +109,10 @@ class SideSearch {
       if (state === 0) this.found.add(node);
       const moves = this.incoming[state];
       for (let move = 0; move < moves.length; move++) {
-        const { from, columns } = moves[move];
-        for (let graph = 0; graph < columns.length; graph++) {
-          const [offsets, column] = columns[graph];
-          if (node + 1 >= offsets.length) continue;
-          for (let index = offsets[node], end = offsets[node + 1]; index < end; index++) this.push(column[index], from);
-        }
+        const { from, neighbours } = moves[move];
+        const { offsets, column } = neighbours;
+        if (node + 1 >= offsets.length) continue;
+        for (let index = offsets[node], end = offsets[node + 1]; index < end; index++) this.push(column[index], from);
       }
     }
     return this.head >= this.queue.length;
@@ -129,6 +127,12 @@ class SideSearch {
   result(): Int32Array {
     return Int32Array.from(this.found).sort();
   }
+}
+
+/** A role's CSR columns in the direction a search walks it: offsets and the neighbours they index. */
+interface NeighbourColumns {
+  offsets: Int32Array;
+  column: Int32Array;
 }
 
 /** A rule that the seeded re-run cannot cover, and why (the rule is then run in full). */
@@ -167,29 +171,14 @@ class EditView {
     return graph === this.after ? this.afterContext : planContextFor(graph);
   }
 
-  private readonly columns = new Map<string, [Int32Array, Int32Array][]>();
-
   /**
-   * The CSR columns (offsets, neighbours) of a role in one direction, in both graphs: one pair when
-   * the edit left the role's adjacency as it was.
+   * A role's CSR columns in one direction on the new graph. A side search walks these only: the
+   * edges before a walk's first changed edge (after its last, walking back) are in both graphs.
    */
-  neighbourColumns(role: Role, outgoing: boolean): [Int32Array, Int32Array][] {
-    const key = `${role} ${outgoing}`;
-    let found = this.columns.get(key);
-    if (found === undefined) {
-      const of = (graph: HierarchyGraph): [Int32Array, Int32Array] | RoleAdjacency | undefined => {
-        if (!(graph instanceof BuiltHierarchyGraph)) return undefined;
-        return graph.parts.adjacency[role];
-      };
-      const before = of(this.before);
-      const after = of(this.after);
-      if (before === undefined || after === undefined || Array.isArray(before) || Array.isArray(after)) throw new Error('an edit view needs built graphs');
-      const pick = (adjacency: RoleAdjacency): [Int32Array, Int32Array] =>
-        outgoing ? [adjacency.offsets, adjacency.targets] : [adjacency.reverseOffsets, adjacency.reverseSources];
-      found = before === after ? [pick(after)] : [pick(before), pick(after)];
-      this.columns.set(key, found);
-    }
-    return found;
+  newNeighbours(role: Role, outgoing: boolean): NeighbourColumns {
+    if (!(this.after instanceof BuiltHierarchyGraph)) throw new Error('an edit view needs built graphs');
+    const adjacency = this.after.parts.adjacency[role];
+    return outgoing ? { offsets: adjacency.offsets, column: adjacency.targets } : { offsets: adjacency.reverseOffsets, column: adjacency.reverseSources };
   }
 
   /** Whether a role has added or removed edges. */
@@ -199,7 +188,7 @@ class EditView {
   }
 
   /**
-   * A_P (inverted false): the nodes from which P's automaton, over old ∪ new edges, reaches a
+   * A_P (inverted false): the nodes from which P's automaton, over the new graph's edges, reaches a
    * changed edge at a state that walks it; B_P is A of the inverted path. Nodes only one graph
    * has are included.
    */
