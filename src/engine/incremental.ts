@@ -247,6 +247,8 @@ class EditView {
    * a changed edge, so x reaches the edge (A_P) and is reached from it (B_P), and so does every
    * node of the walk. When P is X+ or X* with X single steps, A_P ∩ B_P is found by a backward
    * search from the changed edges kept inside B_P, not A_P in full; X* holds for every x anyway.
+   * For X+ the entry's truth at x is whether x is on a cycle of X, which both graphs answer at
+   * once from their components: only the nodes where it differs (and those one graph lacks) are kept.
    */
   closedWalkSeeds(path: PathExpression): Int32Array {
     const key = `closed ${formatPath(path)}`;
@@ -260,7 +262,10 @@ class EditView {
       const ends = new Set(this.startSide(path, true));
       const search = new SideSearch(this, path, false, (id) => ends.has(id));
       search.advance(Infinity);
-      found = search.result();
+      const existence = new Set(this.existence);
+      const before = this.context(this.before).search(path);
+      const after = this.context(this.after).search(path);
+      found = search.result().filter((id) => existence.has(id) || before.holds(id, id) !== after.holds(id, id));
     }
     this.reach.set(key, found);
     return found;
