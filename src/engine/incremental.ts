@@ -60,21 +60,26 @@ class SideSearch {
   /** Per state: the moves into it, as the state they leave and the new graph's neighbours that walk them back. */
   private readonly incoming: { from: number; neighbours: NeighbourColumns }[][];
   private readonly visited: Uint8Array;
-  private readonly queue: number[] = [];
+  /** Visited pairs in the order they were queued; `head` is the next to expand. */
+  private queue = new Int32Array(1024);
+  private tail = 0;
   private head = 0;
-  private readonly found = new Set<number>();
+  /** Per node, 1 once it is among the nodes found; the found nodes in the order found. */
+  private readonly reached: Uint8Array;
+  private readonly found: number[] = [];
 
   constructor(
     view: EditView,
     path: PathExpression,
     inverted: boolean,
-    private readonly keep: (id: number) => boolean = () => true,
+    private readonly keep?: (id: number) => boolean,
   ) {
     const automaton = compileAutomaton(path, inverted);
     this.states = automaton.stateCount;
     this.visited = new Uint8Array(view.after.nodeCount * this.states);
+    this.reached = new Uint8Array(view.after.nodeCount);
     this.incoming = Array.from({ length: this.states }, () => []);
-    for (const id of view.existence) this.found.add(id);
+    for (const id of view.existence) this.reach(id);
     for (let state = 0; state < this.states; state++) {
       for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
         const role = ROLES[automaton.transitionRole[move]];
@@ -90,23 +95,34 @@ class SideSearch {
     }
   }
 
+  private reach(node: number): void {
+    if (this.reached[node] === 1) return;
+    this.reached[node] = 1;
+    this.found.push(node);
+  }
+
   private push(node: number, state: number): void {
-    if (!this.keep(node)) return;
     const pair = node * this.states + state;
     if (this.visited[pair] === 1) return;
+    if (this.keep !== undefined && !this.keep(node)) return;
     this.visited[pair] = 1;
-    this.queue.push(pair);
+    if (this.tail === this.queue.length) {
+      const grown = new Int32Array(this.queue.length * 2);
+      grown.set(this.queue);
+      this.queue = grown;
+    }
+    this.queue[this.tail++] = pair;
   }
 
   /** Visits up to `pairs` more pairs; true when the search is done. */
   advance(pairs: number): boolean {
     const states = this.states;
     const stop = this.head + pairs;
-    while (this.head < this.queue.length && this.head < stop) {
+    while (this.head < this.tail && this.head < stop) {
       const pair = this.queue[this.head++];
       const node = Math.floor(pair / states);
       const state = pair - node * states;
-      if (state === 0) this.found.add(node);
+      if (state === 0) this.reach(node);
       const moves = this.incoming[state];
       for (let move = 0; move < moves.length; move++) {
         const { from, neighbours } = moves[move];
@@ -115,7 +131,7 @@ class SideSearch {
         for (let index = offsets[node], end = offsets[node + 1]; index < end; index++) this.push(column[index], from);
       }
     }
-    return this.head >= this.queue.length;
+    return this.head >= this.tail;
   }
 
   /** Pairs visited so far. */
