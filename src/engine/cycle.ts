@@ -4,7 +4,7 @@ import { shortestClosedWalk } from '../graph/paths.js';
 import { cyclicComponents } from '../graph/scc.js';
 import { BACKWARD, FORWARD, singleSteps, type RoleStep } from './automaton.js';
 import type { PathExpression } from './path.js';
-import { PathSearch, stepSuccessors, type SearchArena, type WalkedEdge } from './path-search.js';
+import { PathSearch, stepColumns, stepSuccessors, type SearchArena, type WalkedEdge } from './path-search.js';
 
 /** One cyclic component: members ordered along the closed walk, and the walk's edges (the evidence). */
 export interface CycleComponent {
@@ -125,7 +125,8 @@ export class CycleSource {
     if (this.components === undefined) {
       // For single steps the run's shared components serve (a search of the same steps may have made them already).
       const assignment = this.steps !== undefined ? this.arena.stepComponents(this.graph, this.steps) : undefined;
-      const components = cyclicComponents(this.graph.nodeCount, this.successors(), undefined, assignment);
+      const columns = this.steps !== undefined ? stepColumns(this.graph, this.steps) : undefined;
+      const components = cyclicComponents(this.graph.nodeCount, columns ?? this.successors(), undefined, assignment);
       const componentOf = new Int32Array(this.graph.nodeCount);
       components.forEach((members, index) => {
         for (const member of members) componentOf[member] = index + 1;

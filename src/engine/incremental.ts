@@ -1,7 +1,6 @@
 // Re-runs rules after an edit around the changed nodes only, giving the findings a full run would.
 import type { GraphChanges } from '../graph/apply-edit.js';
 import { BuiltHierarchyGraph } from '../graph/built-graph.js';
-import type { RoleAdjacency } from '../graph/csr.js';
 import type { HierarchyGraph, NodeKind } from '../graph/hierarchy-graph.js';
 import type { Statement } from '../load/statement.js';
 import { ROLES, type Role } from '../roles/role.js';
@@ -22,8 +21,9 @@ import { compareFindings, findingsOf, messageFollowsNodes, planContextFor, runRu
  * or vanished node: every positive entry's seed set holds those), or has some entry whose truth
  * differs between the graphs. Per entry, that can happen only here:
  * - `[?s, P, ?o]`: a walk of P from s to o exists in one graph only, so it steps over a changed
- *   edge; the walk's part before that edge lies in one graph, so s reaches the edge by P's
- *   automaton over old ∪ new edges (s ∈ A_P), and symmetrically o ∈ B_P. One of the two suffices.
+ *   edge; the walk's part before its first changed edge has unchanged edges only, which both graphs
+ *   have, so s reaches that edge by P's automaton over the new graph's edges (s ∈ A_P), and
+ *   symmetrically (the part after its last changed edge) o ∈ B_P. One of the two suffices.
  * - `{is: [?x, K]}`: x's K bit differs. The focus being in scope is such an entry too.
  * - `{absent: [?x, P]}`: the walks of P from x differ, so x ∈ A_P.
  * - `cycle` over X: a component whose members or walk differ holds a node whose X-steps differ (an
@@ -53,33 +53,39 @@ const SUBJECT_SIDE_PREFERENCE = 2;
 
 /**
  * The search behind A_P: breadth-first over (node, automaton state) pairs, backwards from the
- * changed edges, over the edges of both graphs; resumable, so two can run in step.
+ * changed edges, over the new graph's edges; resumable, so two can run in step.
  */
 class SideSearch {
   private readonly states: number;
-  /** Per state: the moves into it, as (from state, role, whether the move walks its role backwards). */
-  private readonly incoming: { from: number; role: Role; backward: boolean }[][];
+  /** Per state: the moves into it, as the state they leave and the new graph's neighbours that walk them back. */
+  private readonly incoming: { from: number; neighbours: NeighbourColumns }[][];
   private readonly visited: Uint8Array;
-  private readonly queue: number[] = [];
+  /** Visited pairs in the order they were queued; `head` is the next to expand. */
+  private queue = new Int32Array(1024);
+  private tail = 0;
   private head = 0;
-  private readonly found = new Set<number>();
+  /** Per node, 1 once it is among the nodes found; the found nodes in the order found. */
+  private readonly reached: Uint8Array;
+  private readonly found: number[] = [];
 
   constructor(
-    private readonly view: EditView,
+    view: EditView,
     path: PathExpression,
     inverted: boolean,
-    private readonly keep: (id: number) => boolean = () => true,
+    private readonly keep?: (id: number) => boolean,
   ) {
     const automaton = compileAutomaton(path, inverted);
     this.states = automaton.stateCount;
     this.visited = new Uint8Array(view.after.nodeCount * this.states);
+    this.reached = new Uint8Array(view.after.nodeCount);
     this.incoming = Array.from({ length: this.states }, () => []);
-    for (const id of view.existence) this.found.add(id);
+    for (const id of view.existence) this.reach(id);
     for (let state = 0; state < this.states; state++) {
       for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
         const role = ROLES[automaton.transitionRole[move]];
         const backward = automaton.transitionDirection[move] === BACKWARD;
-        this.incoming[automaton.transitionTarget[move]].push({ from: state, role, backward });
+        // The walk came into a node over this move: from a predecessor for a forward step, a successor for a backward one.
+        this.incoming[automaton.transitionTarget[move]].push({ from: state, neighbours: view.newNeighbours(role, backward) });
         // A walk at `state` that takes this move over a changed edge stands at the edge's start (its end, walked backwards).
         const edges = view.changes.edges[role];
         for (const list of [edges.added, edges.removed]) {
@@ -89,33 +95,43 @@ class SideSearch {
     }
   }
 
+  private reach(node: number): void {
+    if (this.reached[node] === 1) return;
+    this.reached[node] = 1;
+    this.found.push(node);
+  }
+
   private push(node: number, state: number): void {
-    if (!this.keep(node)) return;
     const pair = node * this.states + state;
     if (this.visited[pair] === 1) return;
+    if (this.keep !== undefined && !this.keep(node)) return;
     this.visited[pair] = 1;
-    this.queue.push(pair);
+    if (this.tail === this.queue.length) {
+      const grown = new Int32Array(this.queue.length * 2);
+      grown.set(this.queue);
+      this.queue = grown;
+    }
+    this.queue[this.tail++] = pair;
   }
 
   /** Visits up to `pairs` more pairs; true when the search is done. */
   advance(pairs: number): boolean {
     const states = this.states;
     const stop = this.head + pairs;
-    while (this.head < this.queue.length && this.head < stop) {
+    while (this.head < this.tail && this.head < stop) {
       const pair = this.queue[this.head++];
       const node = Math.floor(pair / states);
       const state = pair - node * states;
-      if (state === 0) this.found.add(node);
-      for (const { from, role, backward } of this.incoming[state]) {
-        // The walk came into `node` over this move: from a predecessor for a forward step, a successor for a backward one.
-        for (const columns of this.view.neighbourColumns(role, backward)) {
-          const [offsets, column] = columns;
-          if (node + 1 >= offsets.length) continue;
-          for (let index = offsets[node]; index < offsets[node + 1]; index++) this.push(column[index], from);
-        }
+      if (state === 0) this.reach(node);
+      const moves = this.incoming[state];
+      for (let move = 0; move < moves.length; move++) {
+        const { from, neighbours } = moves[move];
+        const { offsets, column } = neighbours;
+        if (node + 1 >= offsets.length) continue;
+        for (let index = offsets[node], end = offsets[node + 1]; index < end; index++) this.push(column[index], from);
       }
     }
-    return this.head >= this.queue.length;
+    return this.head >= this.tail;
   }
 
   /** Pairs visited so far. */
@@ -127,6 +143,12 @@ class SideSearch {
   result(): Int32Array {
     return Int32Array.from(this.found).sort();
   }
+}
+
+/** A role's CSR columns in the direction a search walks it: offsets and the neighbours they index. */
+interface NeighbourColumns {
+  offsets: Int32Array;
+  column: Int32Array;
 }
 
 /** A rule that the seeded re-run cannot cover, and why (the rule is then run in full). */
@@ -165,29 +187,14 @@ class EditView {
     return graph === this.after ? this.afterContext : planContextFor(graph);
   }
 
-  private readonly columns = new Map<string, [Int32Array, Int32Array][]>();
-
   /**
-   * The CSR columns (offsets, neighbours) of a role in one direction, in both graphs: one pair when
-   * the edit left the role's adjacency as it was.
+   * A role's CSR columns in one direction on the new graph. A side search walks these only: the
+   * edges before a walk's first changed edge (after its last, walking back) are in both graphs.
    */
-  neighbourColumns(role: Role, outgoing: boolean): [Int32Array, Int32Array][] {
-    const key = `${role} ${outgoing}`;
-    let found = this.columns.get(key);
-    if (found === undefined) {
-      const of = (graph: HierarchyGraph): [Int32Array, Int32Array] | RoleAdjacency | undefined => {
-        if (!(graph instanceof BuiltHierarchyGraph)) return undefined;
-        return graph.parts.adjacency[role];
-      };
-      const before = of(this.before);
-      const after = of(this.after);
-      if (before === undefined || after === undefined || Array.isArray(before) || Array.isArray(after)) throw new Error('an edit view needs built graphs');
-      const pick = (adjacency: RoleAdjacency): [Int32Array, Int32Array] =>
-        outgoing ? [adjacency.offsets, adjacency.targets] : [adjacency.reverseOffsets, adjacency.reverseSources];
-      found = before === after ? [pick(after)] : [pick(before), pick(after)];
-      this.columns.set(key, found);
-    }
-    return found;
+  newNeighbours(role: Role, outgoing: boolean): NeighbourColumns {
+    if (!(this.after instanceof BuiltHierarchyGraph)) throw new Error('an edit view needs built graphs');
+    const adjacency = this.after.parts.adjacency[role];
+    return outgoing ? { offsets: adjacency.offsets, column: adjacency.targets } : { offsets: adjacency.reverseOffsets, column: adjacency.reverseSources };
   }
 
   /** Whether a role has added or removed edges. */
@@ -197,7 +204,7 @@ class EditView {
   }
 
   /**
-   * A_P (inverted false): the nodes from which P's automaton, over old ∪ new edges, reaches a
+   * A_P (inverted false): the nodes from which P's automaton, over the new graph's edges, reaches a
    * changed edge at a state that walks it; B_P is A of the inverted path. Nodes only one graph
    * has are included.
    */
@@ -256,6 +263,8 @@ class EditView {
    * a changed edge, so x reaches the edge (A_P) and is reached from it (B_P), and so does every
    * node of the walk. When P is X+ or X* with X single steps, A_P ∩ B_P is found by a backward
    * search from the changed edges kept inside B_P, not A_P in full; X* holds for every x anyway.
+   * For X+ the entry's truth at x is whether x is on a cycle of X, which both graphs answer at
+   * once from their components: only the nodes where it differs (and those one graph lacks) are kept.
    */
   closedWalkSeeds(path: PathExpression): Int32Array {
     const key = `closed ${formatPath(path)}`;
@@ -269,7 +278,10 @@ class EditView {
       const ends = new Set(this.startSide(path, true));
       const search = new SideSearch(this, path, false, (id) => ends.has(id));
       search.advance(Infinity);
-      found = search.result();
+      const existence = new Set(this.existence);
+      const before = this.context(this.before).search(path);
+      const after = this.context(this.after).search(path);
+      found = search.result().filter((id) => existence.has(id) || before.holds(id, id) !== after.holds(id, id));
     }
     this.reach.set(key, found);
     return found;

@@ -1,6 +1,7 @@
 // Breadth-first evaluation of a compiled path over (node, state) pairs, with scratch arrays reused between calls.
 import { ReachLabels } from '../graph/reach-labels.js';
-import { cyclicComponents, stronglyConnected, type ComponentAssignment } from '../graph/scc.js';
+import { cyclicComponents, stronglyConnected, type ComponentAssignment, type NeighbourColumns } from '../graph/scc.js';
+import { BuiltHierarchyGraph } from '../graph/built-graph.js';
 import type { HierarchyGraph } from '../graph/hierarchy-graph.js';
 import { ROLES, type Role } from '../roles/role.js';
 import { BACKWARD, FORWARD, compileAutomaton, singleSteps, type PathAutomaton, type RoleStep } from './automaton.js';
@@ -87,7 +88,7 @@ export class SearchArena {
       const last = mirror.count - 1;
       found = { component: mirror.component.map((index) => last - index), count: mirror.count };
     } else {
-      found = stronglyConnected(graph.nodeCount, stepSuccessors(graph, steps));
+      found = stronglyConnected(graph.nodeCount, stepColumns(graph, steps) ?? stepSuccessors(graph, steps));
     }
     this.stepComponentsMemo.set(key, found);
     return found;
@@ -149,6 +150,9 @@ export class PathSearch {
   private readonly closureOfSteps: boolean;
   /** The role and direction when the path is one step (`part-of`, `^part-of`): read straight from the adjacency. */
   private readonly onlyStep: RoleStep | undefined;
+  /** Per automaton move, on a built graph: the CSR offsets and neighbour column it walks, read in place rather than through a view per node. */
+  private readonly moveOffsets: Int32Array[] | undefined;
+  private readonly moveColumns: Int32Array[] | undefined;
 
   constructor(
     private readonly graph: HierarchyGraph,
@@ -161,6 +165,17 @@ export class PathSearch {
     this.closureOfSteps = path.type === 'modified' && path.modifier !== '?' && singleSteps(path.path) !== undefined;
     const steps = singleSteps(path);
     this.onlyStep = steps?.length === 1 ? steps[0] : undefined;
+    if (graph instanceof BuiltHierarchyGraph) {
+      const automaton = this.forward;
+      this.moveOffsets = [];
+      this.moveColumns = [];
+      for (let move = 0; move < automaton.transitionRole.length; move++) {
+        const adjacency = graph.parts.adjacency[ROLES[automaton.transitionRole[move]]];
+        const backward = automaton.transitionDirection[move] === BACKWARD;
+        this.moveOffsets.push(backward ? adjacency.reverseOffsets : adjacency.offsets);
+        this.moveColumns.push(backward ? adjacency.reverseSources : adjacency.targets);
+      }
+    }
   }
 
   /** The end nodes of the path from a start node, ascending (may be shared with the memo: never modify it). */
@@ -284,7 +299,7 @@ export class PathSearch {
     if (this.cycleMembers === undefined) {
       const members = new Uint8Array(this.graph.nodeCount);
       const steps = this.plusSteps as RoleStep[];
-      const successors = stepSuccessors(this.graph, steps);
+      const successors = stepColumns(this.graph, steps) ?? stepSuccessors(this.graph, steps);
       const assignment = this.arena.stepComponents(this.graph, steps);
       for (const component of cyclicComponents(this.graph.nodeCount, successors, undefined, assignment)) {
         for (const member of component) members[member] = 1;
@@ -333,6 +348,7 @@ export class PathSearch {
     const states = automaton.stateCount;
     const arena = this.arena;
     const graph = this.graph;
+    const { moveOffsets, moveColumns } = this;
     const towardEnd = end >= 0 && start !== end;
     const labels = towardEnd ? this.labelsOnceEarned() : undefined;
     const rank = towardEnd && labels === undefined && !this.wholeGraphUnearned() ? this.components().component : undefined;
@@ -352,11 +368,24 @@ export class PathSearch {
       const node = Math.floor(pair / states);
       const state = pair - node * states;
       for (let move = automaton.transitionStart[state]; move < automaton.transitionStart[state + 1]; move++) {
-        const role = ROLES[automaton.transitionRole[move]];
         const target = automaton.transitionTarget[move];
-        const neighbours =
-          automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
-        for (let index = 0; index < neighbours.length; index++) {
+        let neighbours: Int32Array;
+        let first = 0;
+        let stop: number;
+        if (moveOffsets !== undefined && moveColumns !== undefined) {
+          const offsets = moveOffsets[move];
+          neighbours = moveColumns[move];
+          // A patched graph keeps an unchanged role's offsets, which end before the nodes the edit added.
+          if (node + 1 < offsets.length) {
+            first = offsets[node];
+            stop = offsets[node + 1];
+          } else stop = 0;
+        } else {
+          const role = ROLES[automaton.transitionRole[move]];
+          neighbours = automaton.transitionDirection[move] === BACKWARD ? graph.predecessors(role, node) : graph.successors(role, node);
+          stop = neighbours.length;
+        }
+        for (let index = first; index < stop; index++) {
           const neighbour = neighbours[index];
           if (labels !== undefined ? !labels.mayReach(neighbour, end) : rank !== undefined && rank[neighbour] < endRank) continue;
           const next = neighbour * states + target;
@@ -427,6 +456,16 @@ export function stepSuccessors(graph: HierarchyGraph, steps: RoleStep[]): (id: n
     }
     return merged;
   };
+}
+
+/** The successors of one single step on a built graph, as its CSR columns read in place; undefined otherwise. */
+export function stepColumns(graph: HierarchyGraph, steps: RoleStep[]): NeighbourColumns | undefined {
+  if (steps.length !== 1 || !(graph instanceof BuiltHierarchyGraph)) return undefined;
+  const { role, direction } = steps[0];
+  const adjacency = graph.parts.adjacency[role];
+  return direction === FORWARD
+    ? { offsets: adjacency.offsets, neighbours: adjacency.targets }
+    : { offsets: adjacency.reverseOffsets, neighbours: adjacency.reverseSources };
 }
 
 /** A key for a union of steps that does not depend on their order. */

@@ -6,6 +6,15 @@ export interface ComponentAssignment {
   count: number;
 }
 
+/** A successor list per node as a CSR column: node i's successors are `neighbours[offsets[i]..offsets[i+1])`; nodes past `offsets` have none. */
+export interface NeighbourColumns {
+  offsets: Int32Array;
+  neighbours: Int32Array;
+}
+
+/** The successors of each node: a function returning a node's list, or the lists packed as columns (read in place, no list made per node). */
+export type Successors = ((id: number) => ArrayLike<number>) | NeighbourColumns;
+
 const UNVISITED = -1;
 /** Put in a closed frame's place so its successor list can be collected. */
 const EMPTY: ArrayLike<number> = new Int32Array(0);
@@ -14,10 +23,7 @@ const EMPTY: ArrayLike<number> = new Int32Array(0);
  * Tarjan's strongly connected components over ids 0..nodeCount-1, iteratively, so a graph with a
  * path a million nodes long needs no call stack depth. Components come out in reverse topological order.
  */
-export function stronglyConnected(
-  nodeCount: number,
-  successors: (id: number) => ArrayLike<number>,
-): ComponentAssignment {
+export function stronglyConnected(nodeCount: number, successors: Successors): ComponentAssignment {
   const component = new Int32Array(nodeCount).fill(UNVISITED);
   const discovery = new Int32Array(nodeCount).fill(UNVISITED);
   const lowLink = new Int32Array(nodeCount);
@@ -25,38 +31,50 @@ export function stronglyConnected(
   // The Tarjan stack of nodes not yet assigned to a component.
   const memberStack = new Int32Array(nodeCount);
   let memberTop = 0;
-  // The depth-first call stack: the node of each frame and how far its successor list was walked.
+  // The depth-first call stack: the node of each frame, the list holding its successors, the next position to walk and where they end.
   const frameNode = new Int32Array(nodeCount);
   const frameNext = new Int32Array(nodeCount);
+  const frameEnd = new Int32Array(nodeCount);
   const frameSuccessors: ArrayLike<number>[] = [];
   let frameTop = 0;
   let nextDiscovery = 0;
   let count = 0;
+  const columns = typeof successors === 'function' ? undefined : successors;
+  const listOf = typeof successors === 'function' ? successors : undefined;
+  const open = (node: number): void => {
+    frameNode[frameTop] = node;
+    if (columns !== undefined) {
+      const { offsets } = columns;
+      frameSuccessors[frameTop] = columns.neighbours;
+      frameNext[frameTop] = node + 1 < offsets.length ? offsets[node] : 0;
+      frameEnd[frameTop] = node + 1 < offsets.length ? offsets[node + 1] : 0;
+    } else {
+      const list = (listOf as (id: number) => ArrayLike<number>)(node);
+      frameSuccessors[frameTop] = list;
+      frameNext[frameTop] = 0;
+      frameEnd[frameTop] = list.length;
+    }
+    frameTop++;
+  };
 
   for (let root = 0; root < nodeCount; root++) {
     if (discovery[root] !== UNVISITED) continue;
     discovery[root] = lowLink[root] = nextDiscovery++;
     memberStack[memberTop++] = root;
     onStack[root] = 1;
-    frameNode[frameTop] = root;
-    frameNext[frameTop] = 0;
-    frameSuccessors[frameTop] = successors(root);
-    frameTop++;
+    open(root);
 
     while (frameTop > 0) {
       const frame = frameTop - 1;
       const node = frameNode[frame];
       const nodeSuccessors = frameSuccessors[frame];
-      if (frameNext[frame] < nodeSuccessors.length) {
+      if (frameNext[frame] < frameEnd[frame]) {
         const target = nodeSuccessors[frameNext[frame]++];
         if (discovery[target] === UNVISITED) {
           discovery[target] = lowLink[target] = nextDiscovery++;
           memberStack[memberTop++] = target;
           onStack[target] = 1;
-          frameNode[frameTop] = target;
-          frameNext[frameTop] = 0;
-          frameSuccessors[frameTop] = successors(target);
-          frameTop++;
+          open(target);
         } else if (onStack[target] === 1 && discovery[target] < lowLink[node]) {
           lowLink[node] = discovery[target];
         }
@@ -90,8 +108,8 @@ export function stronglyConnected(
  */
 export function cyclicComponents(
   nodeCount: number,
-  successors: (id: number) => ArrayLike<number>,
-  hasSelfLoop: (id: number) => boolean = (id) => includes(successors(id), id),
+  successors: Successors,
+  hasSelfLoop: (id: number) => boolean = (id) => includesSelf(successors, id),
   assignment?: ComponentAssignment,
 ): number[][] {
   const { component, count } = assignment ?? stronglyConnected(nodeCount, successors);
@@ -114,7 +132,15 @@ export function cyclicComponents(
   return ordered;
 }
 
-function includes(values: ArrayLike<number>, wanted: number): boolean {
-  for (let index = 0; index < values.length; index++) if (values[index] === wanted) return true;
+/** Whether a node is among its own successors. */
+function includesSelf(successors: Successors, id: number): boolean {
+  if (typeof successors === 'function') {
+    const values = successors(id);
+    for (let index = 0; index < values.length; index++) if (values[index] === id) return true;
+    return false;
+  }
+  const { offsets, neighbours } = successors;
+  if (id + 1 >= offsets.length) return false;
+  for (let index = offsets[id]; index < offsets[id + 1]; index++) if (neighbours[index] === id) return true;
   return false;
 }

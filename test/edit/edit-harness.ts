@@ -224,6 +224,10 @@ export function expectSameGraph(patched: HierarchyGraph, rebuilt: HierarchyGraph
     for (const id of live(graph)) {
       const edges: Record<string, unknown> = {};
       for (const role of ROLES) {
+        // The reverse columns in full: every source of an edge into the node, ascending by id, none missing.
+        const sources = Array.from(graph.predecessors(role, id));
+        expect(sources).toEqual([...sources].sort((left, right) => left - right));
+        if (sources.length > 0) edges[`^${role}`] = sources.map((source) => graph.term(source)).sort();
         const targets = Array.from(graph.successors(role, id)).map((target) => graph.term(target));
         if (targets.length === 0) continue;
         edges[role] = Object.fromEntries(

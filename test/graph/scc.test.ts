@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { Graph, alg } from '@dagrejs/graphlib';
-import { cyclicComponents, stronglyConnected } from '../../src/graph/scc.js';
+import { cyclicComponents, stronglyConnected, type NeighbourColumns } from '../../src/graph/scc.js';
 import { randomGraph, successorLists } from './random-graph.js';
 
 /** Sorted successor lists of a random graph. */
@@ -15,6 +15,18 @@ function graphlibGraph(graph: { nodeCount: number; edges: [number, number][] }):
   for (let id = 0; id < graph.nodeCount; id++) reference.setNode(String(id));
   for (const [from, to] of graph.edges) reference.setEdge(String(from), String(to));
   return reference;
+}
+
+/**
+ * The lists packed as CSR columns. The offsets end after the last node with successors, as a
+ * patched graph's unchanged role does before the nodes an edit added.
+ */
+function packedColumns(lists: number[][]): NeighbourColumns {
+  let covered = lists.length;
+  while (covered > 0 && lists[covered - 1].length === 0) covered--;
+  const offsets = new Int32Array(covered + 1);
+  for (let id = 0; id < covered; id++) offsets[id + 1] = offsets[id] + lists[id].length;
+  return { offsets, neighbours: Int32Array.from(lists.slice(0, covered).flat()) };
 }
 
 function canonical(groups: number[][]): string[] {
@@ -37,6 +49,20 @@ describe('stronglyConnected', () => {
         expect(canonical(groups)).toEqual(expected);
       }),
       { numRuns: 1000 },
+    );
+  });
+
+  it('reads successors packed as CSR columns to the same partition as graphlib alg.tarjan', () => {
+    // Reference: @dagrejs/graphlib 4 alg.tarjan, as above; the columns are read in place instead of a list per node.
+    fc.assert(
+      fc.property(randomGraph, (graph) => {
+        const expected = canonical(alg.tarjan(graphlibGraph(graph)).map((group) => group.map(Number)));
+        const { component, count } = stronglyConnected(graph.nodeCount, packedColumns(adjacency(graph)));
+        const groups: number[][] = Array.from({ length: count }, () => []);
+        for (let id = 0; id < graph.nodeCount; id++) groups[component[id]].push(id);
+        expect(canonical(groups)).toEqual(expected);
+      }),
+      { numRuns: 500 },
     );
   });
 
@@ -71,6 +97,8 @@ describe('cyclicComponents', () => {
         const expected = canonical(alg.findCycles(reference).map((group) => group.map(Number)));
         const found = cyclicComponents(graph.nodeCount, (id) => lists[id]);
         expect(canonical(found)).toEqual(expected);
+        // The same lists as CSR columns: the self-loop test reads them in place.
+        expect(cyclicComponents(graph.nodeCount, packedColumns(lists))).toEqual(found);
         for (const group of found) expect(group).toEqual([...group].sort((a, b) => a - b));
         const firsts = found.map((group) => group[0]);
         expect(firsts).toEqual([...firsts].sort((a, b) => a - b));
