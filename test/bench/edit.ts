@@ -16,23 +16,13 @@ import { DCTERMS_IS_PART_OF, OWL_DEPRECATED, RDF_TYPE, RDFS_SUBCLASS_OF, XSD_BOO
 import { randomSource } from '../random-source.js';
 import { BENCH_NAMESPACE, classIri } from './generate.js';
 import { generatedInput } from './scale-inputs.js';
+import { median, timed } from './timing.js';
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 5);
 const CLASSES = 200_000;
 const EDIT_SIZE = 1000;
 const TARGET = 0.1;
 
-const median = (values: number[]): number => {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-};
-
-function timed<T>(work: () => T): { ms: number; value: T } {
-  const start = performance.now();
-  const value = work();
-  return { ms: performance.now() - start, value };
-}
 
 const roleMap = buildRoleMap(['rdfs', 'owl', 'dcterms', 'schema', 'obo'], {});
 const scope = { prefixes: [BENCH_NAMESPACE], roots: [classIri(0)] };

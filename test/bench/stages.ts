@@ -2,7 +2,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { cpus, totalmem } from 'node:os';
-import { performance } from 'node:perf_hooks';
 import { Parser } from 'n3';
 import { loadConfig } from '../../src/config/load-config.js';
 import { loadBuiltinRules } from '../../src/engine/rule-file.js';
@@ -14,22 +13,10 @@ import type { LoadedSource } from '../../src/load/statement.js';
 import { ROLES } from '../../src/roles/role.js';
 import { buildRoleMap } from '../../src/roles/role-map.js';
 import { writeWordnetInput } from './wordnet-input.js';
+import { median, timed } from './timing.js';
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 9);
 
-/** Median of a list of numbers. */
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
-}
-
-/** Milliseconds one call takes, and what it returned. */
-function timed<T>(work: () => T): { ms: number; value: T } {
-  const start = performance.now();
-  const value = work();
-  return { ms: performance.now() - start, value };
-}
 
 /** A digest of everything the stages produce, so two checkouts can be compared for identical results. */
 function digestOf(source: LoadedSource, graph: HierarchyGraph, findings: unknown): string {

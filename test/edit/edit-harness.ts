@@ -23,6 +23,7 @@ import {
   RDFS_SUBCLASS_OF,
   XSD_BOOLEAN,
 } from '../../src/roles/vocabulary.js';
+import { userRuleText } from '../engine/rule-text.js';
 
 export const NV = 'https://data.northvale-rail.example/def/';
 const OTHER = 'https://vocabulary.example.org/';
@@ -117,23 +118,7 @@ export function caseOf(drawnCase: GraphWithEdit): { sources: LoadedSource[]; del
 
 /** A rule file with the given match and report, in the format of rules/. */
 export function userRule(id: string, match: string, report: string): RuleDefinition {
-  const text = [
-    `id: ${id}`,
-    'level: warning',
-    `summary: The ${id} test rule.`,
-    'description: |',
-    '  A user rule for the incremental tests.',
-    'match:',
-    ...match.trim().split('\n').map((line) => `  ${line}`),
-    'report:',
-    ...report.trim().split('\n').map((line) => `  ${line}`),
-    'examples:',
-    '  flagged: |',
-    '    @prefix nv: <https://data.northvale-rail.example/def/> .',
-    '  clean: |',
-    '    @prefix nv: <https://data.northvale-rail.example/def/> .',
-    '',
-  ].join('\n');
+  const text = userRuleText(id, match, report, 'incremental tests');
   const { rule, errors } = parseRuleFile(text, `${id}.yaml`);
   expect(errors).toEqual([]);
   return rule as RuleDefinition;

@@ -9,26 +9,11 @@ import { loadSources } from '../../src/load/sources.js';
 import { buildRoleMap } from '../../src/roles/role-map.js';
 import { bothWays, comparable } from './sparql-harness.js';
 import { graphs, randomRun } from './sparql-random-graphs.js';
+import { userRuleText } from './rule-text.js';
 
-/** A rule file with the given match and report, in the format of rules/. */
+/** A rule file for the push-down tests. */
 function ruleText(id: string, match: string, report: string): string {
-  return [
-    `id: ${id}`,
-    'level: warning',
-    `summary: The ${id} test rule.`,
-    'description: |',
-    '  A user rule for the push-down tests.',
-    'match:',
-    ...match.trim().split('\n').map((line) => `  ${line}`),
-    'report:',
-    ...report.trim().split('\n').map((line) => `  ${line}`),
-    'examples:',
-    '  flagged: |',
-    '    @prefix nv: <https://data.northvale-rail.example/def/> .',
-    '  clean: |',
-    '    @prefix nv: <https://data.northvale-rail.example/def/> .',
-    '',
-  ].join('\n');
+  return userRuleText(id, match, report, 'push-down tests');
 }
 
 /** User rules covering what the built-in rules do not: kind generators, inverse, ?, equivalence, a longer cycle path, unordered foci. */
