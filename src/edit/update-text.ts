@@ -1,12 +1,10 @@
 // The operations of a SPARQL 1.1 Update as written (W3C SPARQL 1.1 Update §3, grammar of SPARQL 1.1 Query §19.8): their kind, line, and the triples of their data and template blocks with the line of each subject.
 import { resolve as resolveIri } from 'relative-to-absolute-iri';
 import type { Literal } from '../load/statement.js';
-import { RDF_TYPE } from '../roles/vocabulary.js';
+import { RDF_FIRST, RDF_NAMESPACE, RDF_NIL, RDF_REST, RDF_TYPE, XSD_BOOLEAN, XSD_STRING } from '../roles/vocabulary.js';
 import { numberLiteral, unescapeCodepoints, unescapeString } from './sparql-literals.js';
 import { tokenize, type Token, type TokenError } from './sparql-tokens.js';
 
-const RDF = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
-const XSD = 'http://www.w3.org/2001/XMLSchema#';
 
 /** A term of a data or template block: an IRI, a blank node label, a literal, or a variable. */
 export type TemplateTerm =
@@ -283,14 +281,14 @@ class UpdateReader {
         items.push({ term: this.graphNode(graph, out), token: itemToken });
       }
       this.index += 1;
-      if (items.length === 0) return { kind: 'iri', value: `${RDF}nil` };
+      if (items.length === 0) return { kind: 'iri', value: RDF_NIL };
       const nodes = items.map(() => this.freshBlank());
       items.forEach((item, position) => {
         const node = nodes[position];
-        const rest = position + 1 < nodes.length ? nodes[position + 1] : ({ kind: 'iri', value: `${RDF}nil` } as const);
+        const rest = position + 1 < nodes.length ? nodes[position + 1] : ({ kind: 'iri', value: RDF_NIL } as const);
         const place = { graph, line: item.token.line, column: item.token.column, objectLine: item.token.line };
-        out.push({ subject: node, predicate: { kind: 'iri', value: `${RDF}first` }, object: item.term, ...place });
-        out.push({ subject: node, predicate: { kind: 'iri', value: `${RDF}rest` }, object: rest, ...place });
+        out.push({ subject: node, predicate: { kind: 'iri', value: RDF_FIRST }, object: item.term, ...place });
+        out.push({ subject: node, predicate: { kind: 'iri', value: RDF_REST }, object: rest, ...place });
       });
       return nodes[0];
     }
@@ -319,7 +317,7 @@ class UpdateReader {
       case 'number':
         return { kind: 'literal', literal: numberLiteral(token.text) };
       case 'word':
-        if (token.text === 'true' || token.text === 'false') return { kind: 'literal', literal: { value: token.text, datatype: `${XSD}boolean`, language: '' } };
+        if (token.text === 'true' || token.text === 'false') return { kind: 'literal', literal: { value: token.text, datatype: XSD_BOOLEAN, language: '' } };
         break;
       default:
         break;
@@ -334,7 +332,7 @@ class UpdateReader {
     const after = this.peek();
     if (after !== undefined && after.kind === 'langtag') {
       this.index += 1;
-      return { value, datatype: `${RDF}langString`, language: after.text.slice(1).toLowerCase() };
+      return { value, datatype: `${RDF_NAMESPACE}langString`, language: after.text.slice(1).toLowerCase() };
     }
     if (after !== undefined && after.kind === 'punct' && after.text === '^^') {
       this.index += 1;
@@ -343,7 +341,7 @@ class UpdateReader {
       if (iri === undefined) throw this.errorAt(datatype, 'a datatype IRI after ^^');
       return { value, datatype: iri, language: '' };
     }
-    return { value, datatype: `${XSD}string`, language: '' };
+    return { value, datatype: XSD_STRING, language: '' };
   }
 
   private iri(token: Token): string {

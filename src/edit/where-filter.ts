@@ -2,6 +2,7 @@
 import type * as Sparql from 'sparqljs';
 import type { Literal } from '../load/statement.js';
 import { boundKey, type BoundTerm } from './statement-index.js';
+import { XSD_STRING } from '../roles/vocabulary.js';
 
 /** One solution: variable name → bound value. */
 export type FilterSolution = Map<string, BoundTerm>;
@@ -12,7 +13,6 @@ type Truth = boolean | 'error';
 /** A comparison this evaluator does not decide (literals compared by value), raised while evaluating. */
 export class UnevaluatedFilter extends Error {}
 
-const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 
 const OPERATORS = new Set(['&&', '||', '!', '=', '!=', 'sameterm', 'isiri', 'isuri', 'isblank', 'isliteral', 'bound', 'in', 'notin', 'exists', 'notexists']);
 

@@ -1,6 +1,7 @@
 // Reading SPARQL 1.1 Query Results JSON into plain terms, refusing anything malformed.
 import { createHash } from 'node:crypto';
 import type { Literal } from './statement.js';
+import { XSD_STRING } from '../roles/vocabulary.js';
 
 /** One bound value of a result row (SPARQL 1.1 Query Results JSON Format, section 3.2.2). */
 export interface ResultTerm {
@@ -22,7 +23,6 @@ export class MalformedResults extends Error {
 }
 
 const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
-const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 const TERM_TYPES: ReadonlySet<string> = new Set(['uri', 'bnode', 'literal', 'typed-literal']);
 
 /** The rows of a SELECT answer; throws MalformedResults when the text is not results JSON. */

@@ -9,6 +9,7 @@ import { parseSource } from './parse.js';
 import { readAllowComment } from './allow-comments.js';
 import { firstInvalidUtf8 } from './source-text.js';
 import { formatName } from './syntax-error.js';
+import { XSD_STRING } from '../roles/vocabulary.js';
 
 /** What a LineReader needs to know about its source. */
 export interface LineReaderOptions {
@@ -33,7 +34,6 @@ const UNDERSCORE = 95;
 
 const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
 const RDF_DIR_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#dirLangString';
-const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 
 /** A predicate seen before: its number in the store, and whether its statements are kept. */
 interface KnownPredicate {

@@ -9,8 +9,8 @@ import { addQuad, prefixedBlankNodeFactory, type StatementPlace } from './rdfjs-
 import { rdfXmlSyntaxError } from './rdfxml-errors.js';
 import { readAllowComment } from './allow-comments.js';
 import { StatementList } from './statement-sink.js';
+import { RDF_FIRST, RDF_REST } from '../roles/vocabulary.js';
 
-const RDF_NS = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#';
 
 /** The parts of the parser's SAX parser (saxes) read here; the RDF/XML parser keeps it private. */
 interface SaxParser {
@@ -143,7 +143,7 @@ class PlacedRdfXmlParser extends RdfXmlParser {
       return { line, column, objectLine: line };
     }
     const own = emitting.activeTag.subject !== undefined && subject.equals(emitting.activeTag.subject);
-    const listLink = emitting.inCollection && (predicate.value === `${RDF_NS}first` || predicate.value === `${RDF_NS}rest`);
+    const listLink = emitting.inCollection && (predicate.value === RDF_FIRST || predicate.value === RDF_REST);
     const at = own || listLink || emitting.parent === undefined ? emitting.node : emitting.parent;
     return { line: at.line, column: at.column, objectLine: emitting.node.line };
   }

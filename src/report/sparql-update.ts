@@ -4,8 +4,8 @@ import type { Literal, Statement } from '../load/statement.js';
 import type { ReportContext } from './context.js';
 import { sortFindings } from './findings-summary.js';
 import { relativePath } from './paths.js';
+import { XSD_STRING } from '../roles/vocabulary.js';
 
-const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
 
 // SPARQL 1.1 Query Language §19.8, IRIREF [139]: no <>"{}|^`\ and no code point up to U+0020 inside <...>.

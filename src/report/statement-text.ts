@@ -1,8 +1,7 @@
 // Writes RDF terms and statements compactly for reports: Turtle-like, with prefixed names when a prefix map is given.
 import type { Literal, Statement } from '../load/statement.js';
+import { RDF_TYPE, XSD_STRING } from '../roles/vocabulary.js';
 
-const RDF_TYPE = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#type';
-const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
 
 // A conservative subset of Turtle's PN_LOCAL (W3C RDF 1.1 Turtle, production [168s]): ASCII letters,
