@@ -59,6 +59,19 @@ function visibleRules(page: Page): Promise<string[]> {
   );
 }
 
+/** Opens a page of the report at `url` in Chromium, watching its console and page errors, runs `work` on it, and closes the browser. */
+async function onPage(url: string, work: (page: Page, problems: string[]) => Promise<void>): Promise<void> {
+  const browser = await openChromium();
+  try {
+    const page = await browser.context.newPage();
+    const problems = watchProblems(page);
+    await page.goto(url);
+    await work(page, problems);
+  } finally {
+    await browser.close();
+  }
+}
+
 /** Sets a control's value as a reader would and waits for the next frame to be drawn. */
 async function choose(page: Page, selector: string, value: string): Promise<number> {
   return page.evaluate(
@@ -96,11 +109,7 @@ describe('the demo report in Chromium', () => {
   });
 
   it('opens with no console error, one row per finding, and the reported ones shown', async () => {
-    const browser = await openChromium();
-    try {
-      const page = await browser.context.newPage();
-      const problems = watchProblems(page);
-      await page.goto(url);
+    await onPage(url, async (page, problems) => {
       const reported = demo.findings.filter((finding) => !finding.suppression);
       expect(await page.locator('tbody.finding').count()).toBe(demo.findings.length);
       expect((await visibleRules(page)).length).toBe(reported.length);
@@ -108,17 +117,11 @@ describe('the demo report in Chromium', () => {
       await choose(page, '#filter-allowed', '');
       expect((await visibleRules(page)).length).toBe(demo.findings.length);
       expect(problems).toEqual([]);
-    } finally {
-      await browser.close();
-    }
+    });
   });
 
   it('filters by rule, level, file and search text', async () => {
-    const browser = await openChromium();
-    try {
-      const page = await browser.context.newPage();
-      const problems = watchProblems(page);
-      await page.goto(url);
+    await onPage(url, async (page, problems) => {
       const reported = demo.findings.filter((finding) => !finding.suppression);
       for (const ruleId of ['orphan-class', 'disjoint-overlap', 'subclass-cycle']) {
         await choose(page, '#filter-rule', ruleId);
@@ -139,17 +142,11 @@ describe('the demo report in Chromium', () => {
       expect(await visibleRules(page)).toEqual([]);
       expect(await page.textContent('#status')).toContain('No finding matches');
       expect(problems).toEqual([]);
-    } finally {
-      await browser.close();
-    }
+    });
   });
 
   it('expands a cycle finding to an SVG with one node per member and one edge per evidence statement; screenshot for review', async () => {
-    const browser = await openChromium();
-    try {
-      const page = await browser.context.newPage();
-      const problems = watchProblems(page);
-      await page.goto(url);
+    await onPage(url, async (page, problems) => {
       const cycle = demo.findings.find((finding) => finding.ruleId === 'subclass-cycle')!;
       const row = page.locator('tbody.finding[data-rule="subclass-cycle"]');
       const diagram = row.locator('svg.diagram');
@@ -171,17 +168,11 @@ describe('the demo report in Chromium', () => {
       mkdirSync(OUTPUT, { recursive: true });
       await page.screenshot({ path: path.join(OUTPUT, 'html-demo-report.png'), fullPage: true });
       expect(problems).toEqual([]);
-    } finally {
-      await browser.close();
-    }
+    });
   });
 
   it('prints without its controls, with the rows of the page opened and their diagrams drawn', async () => {
-    const browser = await openChromium();
-    try {
-      const page = await browser.context.newPage();
-      const problems = watchProblems(page);
-      await page.goto(url);
+    await onPage(url, async (page, problems) => {
       await page.emulateMedia({ media: 'print' });
       expect(await page.locator('#controls').isVisible()).toBe(false);
       expect(await page.locator('#pager').isVisible()).toBe(false);
@@ -193,9 +184,7 @@ describe('the demo report in Chromium', () => {
       await page.evaluate(() => (globalThis as unknown as { dispatchEvent(event: unknown): boolean }).dispatchEvent(new Event('afterprint')));
       expect(await page.locator('tbody.finding.on details[open]').count()).toBe(0);
       expect(problems).toEqual([]);
-    } finally {
-      await browser.close();
-    }
+    });
   });
 
   it('shows every row and opens the diagrams with JavaScript off', async () => {
